@@ -1,0 +1,77 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { isAbsolute, join, resolve } from 'node:path';
+
+export interface Config {
+  port: number;
+  host: string;
+  /** Where the embedded database, the generated JWT secret and the demo sign-ins live. */
+  dataDir: string;
+  /** A PostgreSQL connection string; when absent the embedded SQLite file is used. */
+  databaseUrl?: string;
+  jwtSecret: string;
+  accessTokenTtlSeconds: number;
+  /** The built console to serve beside the API, if it exists. */
+  consoleDir?: string;
+  /** Origin the console is served from when it is not served by the API itself (CORS). */
+  consoleOrigin?: string;
+  seedDemo: boolean;
+  /** A fixed password for every demo person (tests); otherwise one is generated per data folder. */
+  demoPassword?: string;
+  logLevel: string;
+}
+
+export class ConfigError extends Error {}
+
+type Env = Record<string, string | undefined>;
+
+/** Reads and checks configuration from the environment. Throws ConfigError naming the bad variable. */
+export function loadConfig(env: Env, cwd = process.cwd()): Config {
+  const dataDir = absolute(env['TALLYFIT_DATA_DIR'] ?? 'data', cwd);
+  mkdirSync(dataDir, { recursive: true });
+  const consoleDir = absolute(env['TALLYFIT_CONSOLE_DIR'] ?? 'dist/apps/console/browser', cwd);
+  return {
+    port: integer(env, 'PORT', 3000, 0, 65535),
+    host: env['HOST'] ?? '127.0.0.1',
+    dataDir,
+    databaseUrl: env['DATABASE_URL'] || undefined,
+    jwtSecret: env['JWT_SECRET'] || secretFromDataDir(dataDir),
+    accessTokenTtlSeconds: integer(env, 'ACCESS_TOKEN_TTL_SECONDS', 900, 30, 86_400),
+    consoleDir: existsSync(join(consoleDir, 'index.html')) ? consoleDir : undefined,
+    consoleOrigin: env['CONSOLE_ORIGIN'] || undefined,
+    seedDemo: flag(env, 'TALLYFIT_DEMO_SEED', true),
+    demoPassword: env['TALLYFIT_DEMO_PASSWORD'] || undefined,
+    logLevel: env['LOG_LEVEL'] ?? 'info',
+  };
+}
+
+function absolute(path: string, cwd: string): string {
+  return isAbsolute(path) ? path : resolve(cwd, path);
+}
+
+function integer(env: Env, name: string, fallback: number, min: number, max: number): number {
+  const raw = env[name];
+  if (raw === undefined || raw === '') return fallback;
+  const value = Number(raw);
+  if (!Number.isInteger(value) || value < min || value > max) {
+    throw new ConfigError(`${name} must be a whole number from ${min} to ${max}, got "${raw}"`);
+  }
+  return value;
+}
+
+function flag(env: Env, name: string, fallback: boolean): boolean {
+  const raw = env[name];
+  if (raw === undefined || raw === '') return fallback;
+  if (['1', 'true', 'yes'].includes(raw.toLowerCase())) return true;
+  if (['0', 'false', 'no'].includes(raw.toLowerCase())) return false;
+  throw new ConfigError(`${name} must be true or false, got "${raw}"`);
+}
+
+/** A secret generated on first start and kept beside the database, readable by its owner only. */
+function secretFromDataDir(dataDir: string): string {
+  const file = join(dataDir, 'jwt-secret');
+  if (existsSync(file)) return readFileSync(file, 'utf8').trim();
+  const secret = randomBytes(48).toString('base64url');
+  writeFileSync(file, secret + '\n', { mode: 0o600 });
+  return secret;
+}

@@ -1,0 +1,72 @@
+import cors from 'cors';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import type { Knex } from 'knex';
+import pino, { type Logger } from 'pino';
+import { pinoHttp } from 'pino-http';
+import { analysesRoutes } from './analyses/analyses.routes';
+import { authRoutes } from './auth/auth.routes';
+import { createAuthenticate } from './auth/authenticate';
+import type { Config } from './config';
+import { serveConsole } from './console/console-static';
+import { healthRoutes } from './health/health.routes';
+import { apiNotFound, errorHandler } from './http/error-handler';
+import { API_PREFIX, mountRoutes, type RouteDefinition } from './http/route-table';
+
+export interface AppContext {
+  config: Config;
+  db: Knex;
+  logger?: Logger;
+}
+
+export interface TallyfitApp {
+  app: Express;
+  /** Every API route with its access rule, for the OpenAPI document and the role matrix test. */
+  routes: readonly RouteDefinition[];
+}
+
+/** Every resource's routes. A new resource is added here and nowhere else. */
+function allRoutes({ config, db }: AppContext): RouteDefinition[] {
+  return [...healthRoutes(db), ...authRoutes(db, config), ...analysesRoutes(db)];
+}
+
+/**
+ * Builds the Express app on an open, migrated database. Middleware order is fixed: security
+ * headers, request log, CORS, body limits, resource routes (each with its auth and role check),
+ * not-found, console, error handler.
+ */
+export function createApp(context: AppContext): TallyfitApp {
+  const { config, db } = context;
+  const logger = context.logger ?? pino({ level: config.logLevel });
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          // Angular Material sets inline styles; scripts stay same-origin only.
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'upgrade-insecure-requests': null,
+        },
+      },
+    }),
+  );
+  app.use(
+    pinoHttp({
+      logger,
+      redact: ['req.headers.authorization', 'req.headers.cookie'],
+      autoLogging: { ignore: (req) => req.url === `${API_PREFIX}/health` },
+    }),
+  );
+  app.use(cors({ origin: config.consoleOrigin ?? false }));
+  app.use(express.json({ limit: '1mb' }));
+
+  const routes = allRoutes(context);
+  mountRoutes(app, routes, createAuthenticate(db, config.jwtSecret));
+  app.use('/api', apiNotFound);
+  if (config.consoleDir) serveConsole(app, config.consoleDir);
+  app.use(errorHandler);
+  return { app, routes };
+}

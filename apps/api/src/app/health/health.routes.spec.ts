@@ -1,0 +1,28 @@
+import request from 'supertest';
+import { ENGINE_VERSION } from '@tallyfit/engine';
+import { createTestApp, type TestContext } from '../../testing/test-app';
+
+describe('GET /api/v1/health', () => {
+  let ctx: TestContext;
+  beforeAll(async () => (ctx = await createTestApp()));
+  afterAll(() => ctx.close());
+
+  it('reports a reachable database, current migrations and the engine version', async () => {
+    const response = await request(ctx.app).get('/api/v1/health');
+    expect(response.status).toBe(200);
+    expect(response.body).toEqual({
+      status: 'ok',
+      database: { reachable: true, client: 'better-sqlite3' },
+      migrations: { current: true, pending: [] },
+      engineVersion: ENGINE_VERSION,
+    });
+  });
+
+  it('reports pending migrations as degraded with a 503', async () => {
+    await ctx.db.migrate.down();
+    const response = await request(ctx.app).get('/api/v1/health');
+    expect(response.status).toBe(503);
+    expect(response.body.migrations.pending).toEqual(['20261202-0002-create-analyses']);
+    await ctx.db.migrate.latest();
+  });
+});

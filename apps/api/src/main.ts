@@ -1,0 +1,40 @@
+import pino from 'pino';
+import { ENGINE_VERSION } from '@tallyfit/engine';
+import { loadConfig } from './app/config';
+import { createApp } from './app/create-app';
+import { migrateToLatest, openDatabase } from './app/database';
+import { seedDemo } from './app/demo/demo-seed';
+
+async function main(): Promise<void> {
+  const config = loadConfig(process.env);
+  const logger = pino({ level: config.logLevel });
+  const db = openDatabase(config);
+  await migrateToLatest(db);
+  const signIns = config.seedDemo ? await seedDemo(db, config.dataDir, config.demoPassword) : [];
+  const { app } = createApp({ config, db, logger });
+
+  const server = app.listen(config.port, config.host, () => {
+    const address = server.address();
+    const port = typeof address === 'object' && address ? address.port : config.port;
+    const url = `http://${config.host === '127.0.0.1' || config.host === '0.0.0.0' ? 'localhost' : config.host}:${port}`;
+    const lines = [
+      '',
+      `Tallyfit is running at ${url}  (engine ${ENGINE_VERSION}, data in ${config.dataDir})`,
+      config.consoleDir ? '' : 'The console is not built; only the API is served (run `npx nx build console`).',
+      ...(signIns.length ? ['Demo sign-ins (local only):', ...signIns.map((s) => `  ${s.role.padEnd(8)} ${s.email}  ${s.password}`)] : []),
+      '',
+    ];
+    process.stdout.write(lines.filter((line, i) => line !== '' || i === 0 || i === lines.length - 1).join('\n') + '\n');
+  });
+
+  const shutdown = () => {
+    server.close(() => void db.destroy().then(() => process.exit(0)));
+  };
+  process.on('SIGINT', shutdown);
+  process.on('SIGTERM', shutdown);
+}
+
+main().catch((error: unknown) => {
+  process.stderr.write(`Tallyfit could not start: ${error instanceof Error ? error.message : String(error)}\n`);
+  process.exitCode = 1;
+});

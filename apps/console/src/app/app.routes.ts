@@ -1,0 +1,34 @@
+import type { Routes } from '@angular/router';
+import { signedInGuard } from './core/auth/signed-in.guard';
+
+export const appRoutes: Routes = [
+  {
+    path: 'sign-in',
+    title: 'Sign in · Tallyfit',
+    loadComponent: () => import('./pages/sign-in/sign-in-page').then((m) => m.SignInPage),
+  },
+  {
+    path: '',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./shell/app-shell').then((m) => m.AppShell),
+    children: [
+      { path: '', pathMatch: 'full', redirectTo: 'analyses' },
+      {
+        path: 'analyses',
+        title: 'My analyses · Tallyfit',
+        loadComponent: () => import('./pages/analyses/analyses-page').then((m) => m.AnalysesPage),
+      },
+      {
+        path: 'analyses/new',
+        title: 'New analysis · Tallyfit',
+        loadComponent: () => import('./pages/new-analysis/new-analysis-page').then((m) => m.NewAnalysisPage),
+      },
+      {
+        path: 'analyses/:id',
+        title: 'Analysis · Tallyfit',
+        loadComponent: () => import('./pages/analysis/analysis-page').then((m) => m.AnalysisPage),
+      },
+    ],
+  },
+  { path: '**', redirectTo: '' },
+];

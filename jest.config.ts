@@ -1,0 +1,3 @@
+import { getJestProjectsAsync } from '@nx/jest';
+
+export default async () => ({ projects: await getJestProjectsAsync() });

@@ -1,0 +1,5 @@
+export * from './lib/roles';
+export * from './lib/auth';
+export * from './lib/health';
+export * from './lib/analyses';
+export * from './lib/api-error';

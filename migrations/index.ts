@@ -1,0 +1,29 @@
+import type { Knex } from 'knex';
+import * as createUsers from './20261202-0001-create-users';
+import * as createAnalyses from './20261202-0002-create-analyses';
+
+interface Migration {
+  up(knex: Knex): Promise<void>;
+  down(knex: Knex): Promise<void>;
+}
+
+/**
+ * Every migration, in order. A static list (rather than a folder Knex scans) so the bundled
+ * server and ts-jest resolve the same modules without a TypeScript loader at run time.
+ */
+const migrations: ReadonlyArray<readonly [name: string, migration: Migration]> = [
+  ['20261202-0001-create-users', createUsers],
+  ['20261202-0002-create-analyses', createAnalyses],
+];
+
+export const migrationSource: Knex.MigrationSource<Migration> = {
+  getMigrations: async () => migrations.map(([, migration]) => migration),
+  getMigrationName: (migration) => {
+    const entry = migrations.find(([, candidate]) => candidate === migration);
+    if (!entry) throw new Error('unknown migration');
+    return entry[0];
+  },
+  getMigration: async (migration) => migration,
+};
+
+export const migrationNames = migrations.map(([name]) => name);

@@ -1,0 +1,38 @@
+#!/usr/bin/env node
+// `npm test`: lint, type checks, unit and API tests, component tests, then the browser tests,
+// and a closing totals line summed from every Jest runner's JSON report.
+import { spawnSync } from 'node:child_process';
+import { existsSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { join } from 'node:path';
+import { ensureChromium } from './ensure-chromium.mjs';
+
+const root = new URL('../..', import.meta.url).pathname;
+const reports = join(root, 'dist/test-reports');
+rmSync(reports, { recursive: true, force: true });
+
+const nx = (...args) =>
+  spawnSync('npx', ['nx', ...args, '--outputStyle=static'], { cwd: root, stdio: 'inherit', env: process.env }).status ?? 1;
+
+const failures = [];
+if (nx('run-many', '-t', 'lint', 'typecheck', 'test', '--parallel=2') !== 0) failures.push('lint, type checks or unit tests');
+
+const chromium = ensureChromium();
+if (!chromium.ok) {
+  console.error(chromium.message);
+  failures.push('browser tests (no Chromium)');
+} else if (nx('run', 'console-e2e:e2e') !== 0) {
+  failures.push('browser tests');
+}
+
+let passed = 0;
+let failed = 0;
+if (existsSync(reports)) {
+  for (const file of readdirSync(reports).filter((name) => name.endsWith('.json'))) {
+    const report = JSON.parse(readFileSync(join(reports, file), 'utf8'));
+    passed += report.numPassedTests;
+    failed += report.numFailedTests;
+  }
+}
+if (failures.length) console.error(`\nFailed: ${failures.join('; ')}`);
+console.log(`\n${passed} passed, ${failed} failed`);
+process.exit(failures.length || failed ? 1 : 0);
