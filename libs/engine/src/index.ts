@@ -1,0 +1,55 @@
+/**
+ * @tallyfit/engine — goodness-of-fit tests for category counts.
+ *
+ * One entry point, `analyze(spec)`, takes a plain JSON spec and returns a plain JSON result; the
+ * distribution functions, planning functions and category merging are exported for direct use.
+ */
+export { analyze, DEFAULT_ALPHA, DEFAULT_INTERVAL_LEVEL, type AnalyzeOptions } from './lib/analyze';
+export { ENGINE_VERSION } from './lib/engine-version';
+export {
+  analysisSpecSchema,
+  analysisSpecBaseSchema,
+  hypothesisSchema,
+  observedSchema,
+  exactOptionsSchema,
+  distributionFamilies,
+  testNames,
+  exactOrderings,
+  exactMethods,
+  adjustMethods,
+  intervalMethods,
+  type AnalysisSpec,
+  type Hypothesis,
+  type DistributionFamily,
+  type DistributionParams,
+  type TestName,
+  type AdjustMethod,
+  type IntervalMethod,
+} from './lib/spec/analysis-spec';
+export { parseAnalysisSpec } from './lib/spec/parse-analysis-spec';
+export { EngineInputError, type InputIssue } from './lib/spec/engine-input-error';
+export type * from './lib/result/analysis-result';
+export {
+  chiSquareSurvival,
+  chiSquareLogSurvival,
+  chiSquareCdf,
+  chiSquareLogCdf,
+  chiSquareTails,
+  chiSquareQuantile,
+  chiSquareCriticalValue,
+  type ChiSquareTails,
+} from './lib/distributions/chi-square';
+export {
+  noncentralChiSquareSurvival,
+  noncentralChiSquareCdf,
+  noncentralChiSquareTails,
+} from './lib/distributions/noncentral-chi-square';
+export { power, sampleSize, type PowerInput, type PowerResult, type SampleSizeInput, type SampleSizeResult } from './lib/planning/power';
+export { binomialTest, type BinomialTestResult } from './lib/binomial/binomial-test';
+export {
+  exactMultinomialTest,
+  type ExactOrdering,
+  type ExactMethod,
+  type ExactTestOptions,
+  type ExactTestOutcome,
+} from './lib/exact';
