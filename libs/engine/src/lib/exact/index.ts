@@ -1,11 +1,21 @@
 /**
- * Exact multinomial goodness-of-fit test by full enumeration of all C(n + k − 1, k − 1) outcomes,
- * with a seeded Monte Carlo estimate when the enumeration would be too large. The p-value sums
- * P(y) over outcomes at least as extreme as the observed one under the chosen ordering:
- * `probability` (P(y) <= P(obs)), `llr` (G(y) >= G(obs)) or `pearson` (X²(y) >= X²(obs)), each with
- * a relative tie tolerance of 1e-7.
+ * The exact multinomial goodness-of-fit test: the probability, under the hypothesised shares, of
+ * an outcome at least as extreme as the observed counts, with "extreme" judged by one of three
+ * orderings:
+ * - `probability`: outcomes no more probable than the observed one (the classical exact test;
+ *   with two categories, the two-sided exact binomial test);
+ * - `llr`: outcomes whose likelihood-ratio statistic G is at least the observed one;
+ * - `pearson`: outcomes whose Pearson X² is at least the observed one.
+ * Ties are judged with a relative tolerance of 1e-7 (see category-terms.ts).
+ *
+ * `method: 'enumerate'` always computes the exact value (exact-search.ts); `'monte-carlo'` always
+ * samples (monte-carlo-test.ts); `'auto'` computes exactly while the counted work stays within
+ * `workBudget` and samples otherwise.
  */
-import { logFactorial } from '../special/log-gamma';
+import { EngineInputError } from '../spec/engine-input-error';
+import { OrderingName } from './category-terms';
+import { exactSearch } from './exact-search';
+import { monteCarloTest } from './monte-carlo-test';
 
 export type ExactOrdering = 'probability' | 'llr' | 'pearson';
 export type ExactMethod = 'auto' | 'enumerate' | 'monte-carlo';
@@ -13,9 +23,13 @@ export type ExactMethod = 'auto' | 'enumerate' | 'monte-carlo';
 export interface ExactTestOptions {
   ordering: ExactOrdering;
   method: ExactMethod;
+  /** Monte Carlo draws (default 100 000) */
   samples?: number;
+  /** Monte Carlo seed (default 20250101); the same seed gives the same result */
   seed?: number;
+  /** largest exact work, in listed partial outcomes plus counting visits, before `auto` samples instead */
   workBudget?: number;
+  /** called with the fraction done, in [0, 1], during the computation */
   onProgress?: (fraction: number) => void;
 }
 
@@ -23,128 +37,135 @@ export interface ExactTestOutcome {
   ordering: ExactOrdering;
   method: 'enumerate' | 'monte-carlo';
   p: number;
+  /** ln p, finite even where p underflows to 0 */
   logP: number;
+  /** Monte Carlo standard error of p */
   se?: number;
+  /** Monte Carlo draws */
   samples?: number;
+  /** partial outcome vectors the exact search listed */
   outcomesVisited?: number;
+  /** certified upper bound on the probability of extreme outcomes the exact search left out as negligible */
   massBound?: number;
 }
 
-const TIE = 1e-7;
-const DEFAULT_BUDGET = 2_000_000;
-const DEFAULT_SAMPLES = 100_000;
+export const DEFAULT_MONTE_CARLO_SAMPLES = 100_000;
+export const DEFAULT_MONTE_CARLO_SEED = 20250101;
+/** Sized so that the exact searches that fit take at most a few seconds on a 2-core machine (see tools/bench). */
+export const DEFAULT_WORK_BUDGET = 50_000_000;
 
-function outcomeCount(n: number, k: number): number {
-  return Math.exp(logFactorial(n + k - 1) - logFactorial(k - 1) - logFactorial(n));
+const ORDERINGS: readonly ExactOrdering[] = ['probability', 'llr', 'pearson'];
+const METHODS: readonly ExactMethod[] = ['auto', 'enumerate', 'monte-carlo'];
+const SHARE_SUM_TOLERANCE = 1e-6;
+
+interface CanonicalInput {
+  n: number;
+  shares: number[];
+  observed: number[];
 }
 
-/** The statistic whose large values count as extreme, and its tie-tolerant threshold test. */
-function extremeness(ordering: ExactOrdering, probabilities: readonly number[], n: number) {
-  const logShares = probabilities.map((p) => Math.log(p));
-  const logN = Math.log(n);
-  return (y: readonly number[]): number => {
-    let value = 0;
-    for (let i = 0; i < y.length; i++) {
-      const yi = y[i];
-      if (ordering === 'probability') value -= yi * logShares[i] - logFactorial(yi);
-      else if (ordering === 'llr') value += yi > 0 ? 2 * yi * (Math.log(yi) - logN - logShares[i]) : 0;
-      else value += (yi - n * probabilities[i]) ** 2 / (n * probabilities[i]);
-    }
-    return value;
-  };
-}
-
-function isAtLeast(value: number, observed: number): boolean {
-  return value >= observed - TIE * Math.max(1, Math.abs(observed));
-}
-
-function logMultinomial(y: readonly number[], logShares: readonly number[], logNFactorial: number): number {
-  let value = logNFactorial;
-  for (let i = 0; i < y.length; i++) value += y[i] * logShares[i] - logFactorial(y[i]);
-  return value;
-}
-
-function enumerate(counts: readonly number[], probabilities: readonly number[], ordering: ExactOrdering): ExactTestOutcome {
-  const k = counts.length;
-  const n = counts.reduce((a, b) => a + b, 0);
-  const statistic = extremeness(ordering, probabilities, n);
-  const observed = statistic(counts);
-  const logShares = probabilities.map((p) => (p > 0 ? Math.log(p) : -Infinity));
-  const logNFactorial = logFactorial(n);
-  const y = new Array<number>(k).fill(0);
-  let p = 0;
-  let visited = 0;
-  const visit = (index: number, remaining: number) => {
-    if (index === k - 1) {
-      y[index] = remaining;
-      visited++;
-      if (isAtLeast(statistic(y), observed)) p += Math.exp(logMultinomial(y, logShares, logNFactorial));
-      return;
-    }
-    for (let value = 0; value <= remaining; value++) {
-      y[index] = value;
-      visit(index + 1, remaining - value);
-    }
-  };
-  visit(0, n);
-  p = Math.min(1, p);
-  return { ordering, method: 'enumerate', p, logP: Math.log(p), outcomesVisited: visited };
-}
-
-/** Mulberry32, a small seeded 32-bit generator (common practice, no source). */
-function seededUniform(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
-function monteCarlo(
-  counts: readonly number[],
-  probabilities: readonly number[],
-  ordering: ExactOrdering,
-  samples: number,
-  seed: number,
-  onProgress?: (fraction: number) => void,
-): ExactTestOutcome {
-  const k = counts.length;
-  const n = counts.reduce((a, b) => a + b, 0);
-  const statistic = extremeness(ordering, probabilities, n);
-  const observed = statistic(counts);
-  const cumulative: number[] = [];
-  probabilities.reduce((acc, p, i) => (cumulative[i] = acc + p), 0);
-  const uniform = seededUniform(seed);
-  const y = new Array<number>(k).fill(0);
-  let hits = 0;
-  for (let s = 0; s < samples; s++) {
-    y.fill(0);
-    for (let draw = 0; draw < n; draw++) {
-      const u = uniform() * cumulative[k - 1];
-      let i = 0;
-      while (i < k - 1 && u >= cumulative[i]) i++;
-      y[i]++;
-    }
-    if (isAtLeast(statistic(y), observed)) hits++;
-    if (onProgress && s % 1000 === 0) onProgress(s / samples);
+/**
+ * Checks the input and puts it in canonical form: categories with zero probability dropped
+ * (their count must be 0), shares renormalised to sum to exactly 1, categories sorted by share
+ * and then by count — so the result cannot depend on the order categories were given in.
+ */
+function canonicalInput(counts: readonly number[], probabilities: readonly number[]): CanonicalInput {
+  if (!Array.isArray(counts)) throw EngineInputError.at('counts', 'must be an array of counts');
+  if (!Array.isArray(probabilities)) throw EngineInputError.at('probabilities', 'must be an array of probabilities');
+  if (counts.length < 2) throw EngineInputError.at('counts', `needs at least 2 categories, got ${counts.length}`);
+  if (probabilities.length !== counts.length) {
+    throw EngineInputError.at(
+      'probabilities',
+      `needs one probability per category: ${counts.length} counts but ${probabilities.length} probabilities`,
+    );
   }
-  // Count the observed table itself (Davison & Hinkley 1997, eq. 4.11) so p is never 0.
-  const p = (hits + 1) / (samples + 1);
-  return { ordering, method: 'monte-carlo', p, logP: Math.log(p), se: Math.sqrt((p * (1 - p)) / samples), samples };
+  counts.forEach((count, i) => {
+    if (typeof count !== 'number' || !Number.isSafeInteger(count) || count < 0) {
+      throw EngineInputError.at(`counts.${i}`, `must be a whole number >= 0, got ${String(count)}`);
+    }
+  });
+  let sum = 0;
+  probabilities.forEach((share, i) => {
+    if (typeof share !== 'number' || !Number.isFinite(share) || share < 0) {
+      throw EngineInputError.at(`probabilities.${i}`, `must be a finite number >= 0, got ${String(share)}`);
+    }
+    if (share === 0 && counts[i] > 0) {
+      throw EngineInputError.at(`counts.${i}`, `is ${counts[i]} but the category's probability is 0`);
+    }
+    sum += share;
+  });
+  if (!(Math.abs(sum - 1) <= SHARE_SUM_TOLERANCE)) {
+    throw EngineInputError.at('probabilities', `must sum to 1 (within ${SHARE_SUM_TOLERANCE}), got ${sum}`);
+  }
+  const kept = counts
+    .map((count, i) => ({ count, share: probabilities[i] / sum }))
+    .filter((category) => category.share > 0)
+    .sort((a, b) => a.share - b.share || a.count - b.count);
+  return {
+    n: kept.reduce((total, category) => total + category.count, 0),
+    shares: kept.map((category) => category.share),
+    observed: kept.map((category) => category.count),
+  };
 }
 
+function checkOptions(options: ExactTestOptions): void {
+  if (!options || typeof options !== 'object') throw EngineInputError.at('options', 'must be an object');
+  if (!ORDERINGS.includes(options.ordering)) {
+    throw EngineInputError.at('options.ordering', `must be one of ${ORDERINGS.join(', ')}, got ${String(options.ordering)}`);
+  }
+  if (!METHODS.includes(options.method)) {
+    throw EngineInputError.at('options.method', `must be one of ${METHODS.join(', ')}, got ${String(options.method)}`);
+  }
+  if (options.samples !== undefined && !(Number.isSafeInteger(options.samples) && options.samples >= 1)) {
+    throw EngineInputError.at('options.samples', `must be a whole number >= 1, got ${String(options.samples)}`);
+  }
+  if (options.seed !== undefined && !Number.isSafeInteger(options.seed)) {
+    throw EngineInputError.at('options.seed', `must be a whole number, got ${String(options.seed)}`);
+  }
+  if (options.workBudget !== undefined && !(typeof options.workBudget === 'number' && options.workBudget > 0)) {
+    throw EngineInputError.at('options.workBudget', `must be a number > 0, got ${String(options.workBudget)}`);
+  }
+  if (options.onProgress !== undefined && typeof options.onProgress !== 'function') {
+    throw EngineInputError.at('options.onProgress', 'must be a function');
+  }
+}
+
+/** The exact multinomial test of `counts` against `probabilities` (see the file header). */
 export function exactMultinomialTest(
   counts: readonly number[],
   probabilities: readonly number[],
   options: ExactTestOptions,
 ): ExactTestOutcome {
-  const n = counts.reduce((a, b) => a + b, 0);
-  const budget = options.workBudget ?? DEFAULT_BUDGET;
-  const useEnumeration =
-    options.method === 'enumerate' || (options.method === 'auto' && outcomeCount(n, counts.length) <= budget);
-  if (useEnumeration) return enumerate(counts, probabilities, options.ordering);
-  return monteCarlo(counts, probabilities, options.ordering, options.samples ?? DEFAULT_SAMPLES, options.seed ?? 0, options.onProgress);
+  checkOptions(options);
+  const input = canonicalInput(counts, probabilities);
+  const ordering: OrderingName = options.ordering;
+  if (input.shares.length < 2 || input.n === 0) {
+    // A single possible outcome: it is the observed one.
+    options.onProgress?.(1);
+    return { ordering, method: 'enumerate', p: 1, logP: 0, outcomesVisited: 1, massBound: 0 };
+  }
+  if (options.method !== 'monte-carlo') {
+    const budget = options.method === 'enumerate' ? Infinity : (options.workBudget ?? DEFAULT_WORK_BUDGET);
+    const exact = exactSearch({ ordering, ...input }, budget, options.onProgress);
+    if (exact) {
+      return {
+        ordering,
+        method: 'enumerate',
+        p: exact.p,
+        logP: exact.logP,
+        outcomesVisited: exact.outcomesVisited,
+        massBound: exact.massBound,
+      };
+    }
+  }
+  const sampled = monteCarloTest(
+    ordering,
+    input.n,
+    input.shares,
+    input.observed,
+    options.samples ?? DEFAULT_MONTE_CARLO_SAMPLES,
+    options.seed ?? DEFAULT_MONTE_CARLO_SEED,
+    options.onProgress,
+  );
+  return { ordering, method: 'monte-carlo', ...sampled };
 }
