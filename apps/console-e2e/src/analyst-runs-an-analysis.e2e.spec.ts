@@ -47,9 +47,9 @@ describe('an analyst signs in, runs a test and finds it saved', () => {
     await page.getByRole('link', { name: 'New analysis' }).first().click();
     await page.getByRole('heading', { name: 'New analysis' }).waitFor();
     await page.getByLabel('Title').fill('Seedling colour against a 1:1 split');
-    await page.getByLabel('Category 1').fill('green');
-    await page.getByLabel('Category 2').fill('yellow');
-    const counts = page.getByLabel('Observed count');
+    await page.getByRole('textbox', { name: 'Category 1', exact: true }).fill('green');
+    await page.getByRole('textbox', { name: 'Category 2', exact: true }).fill('yellow');
+    const counts = page.getByRole('spinbutton', { name: 'Observed count' });
     await counts.nth(0).fill('1752');
     await counts.nth(1).fill('1895');
     await screenshot(page, '03-new-analysis');

@@ -1,6 +1,6 @@
 import knex, { type Knex } from 'knex';
 import { join } from 'node:path';
-import { migrationSource } from '@tallyfit/migrations';
+import { migrationNames, migrationSource } from '@tallyfit/migrations';
 import type { Config } from './config';
 
 /** Opens the configured database: PostgreSQL when DATABASE_URL is set, else the embedded SQLite file. */
@@ -30,6 +30,7 @@ export async function migrateToLatest(db: Knex): Promise<void> {
 
 /** The names of migrations not yet applied (empty when the schema is current). */
 export async function pendingMigrations(db: Knex): Promise<string[]> {
-  const [, pending] = (await db.migrate.list()) as [unknown[], Array<{ file: string } | string>];
-  return pending.map((entry) => (typeof entry === 'string' ? entry : entry.file));
+  const [completed] = (await db.migrate.list()) as [Array<{ name: string } | string>, unknown[]];
+  const applied = new Set(completed.map((entry) => (typeof entry === 'string' ? entry : entry.name)));
+  return migrationNames.filter((name) => !applied.has(name));
 }

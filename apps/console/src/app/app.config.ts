@@ -11,6 +11,8 @@ export const appConfig: ApplicationConfig = {
     provideRouter(appRoutes, withComponentInputBinding()),
     provideHttpClient(withInterceptors([authInterceptor])),
     // Icons come from the self-hosted Material Symbols font (fonts/), not from a CDN.
-    provideAppInitializer(() => inject(MatIconRegistry).setDefaultFontSetClass('material-symbols-outlined')),
+    provideAppInitializer(() => {
+      inject(MatIconRegistry).setDefaultFontSetClass('material-symbols-outlined');
+    }),
   ],
 };
