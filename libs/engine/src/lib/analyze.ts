@@ -289,13 +289,7 @@ export function analyze(input: AnalysisSpec, options: AnalyzeOptions = {}): Anal
   const mainLine =
     mainTest === 'g' && spec.williams && lines.g ? lines.g : (lines[mainTest] as string);
   const notes = [...resolved.notes];
-  if (spec.mergedCategories && spec.mergedCategories.length > 0) {
-    notes.push(
-      `Before testing, sparse categories were merged: ${spec.mergedCategories
-        .map((group) => `${group.members.map((m) => `"${m}"`).join(', ')} into "${group.label}"`)
-        .join('; ')}.`,
-    );
-  }
+  notes.push(...(spec.notes ?? []));
   if (resolved.estimatedParameters > 0 && spec.hypothesis.kind !== 'distribution') {
     notes.push(
       `${resolved.estimatedParameters} parameter${resolved.estimatedParameters === 1 ? ' was' : 's were'} estimated from the data, so the degrees of freedom were reduced to ${df}.`,

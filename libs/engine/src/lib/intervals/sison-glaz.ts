@@ -75,7 +75,9 @@ export function sisonGlazCoverage(counts: readonly number[], c: number): number 
     third += moments.third;
     excessFourth += moments.fourth - 3 * moments.variance ** 2;
   }
-  if (variance <= 0) return mean === n ? Math.min(1, Math.exp(logFactorial(n) - n * Math.log(n) + n + logProduct)) : 0;
+  // c = 0: every truncated variable is fixed at its count, W = n surely, and ν is the
+  // multinomial probability of the observed table itself.
+  if (c === 0) return Math.min(1, Math.exp(logFactorial(n) - n * Math.log(n) + n + logProduct));
   const sd = Math.sqrt(variance);
   const z = (n - mean) / sd;
   const skew = third / (variance * sd);

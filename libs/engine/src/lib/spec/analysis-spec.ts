@@ -146,7 +146,13 @@ export const analysisSpecBaseSchema = z.strictObject({
     })
     .optional(),
   alpha: finiteNumber('alpha').gt(0, { error: 'alpha must be above 0' }).lt(1, { error: 'alpha must be below 1' }).optional(),
+  /** categories merged before testing (set by mergeCategories); the write-up's cautions mention it */
   mergedCategories: z.array(mergedCategorySchema).optional(),
+  /** sentences the methods paragraph must carry, e.g. the note mergeCategories returns */
+  notes: z
+    .array(z.string({ error: 'each note must be a string' }).max(2000, { error: 'a note must be at most 2000 characters' }))
+    .max(20, { error: 'at most 20 notes' })
+    .optional(),
 });
 
 type SpecShape = z.infer<typeof analysisSpecBaseSchema>;
