@@ -58,7 +58,7 @@ function logInteger(i: number): number {
 
 interface Visitor {
   /** called for each accepted count interval of the last category; return false to stop */
-  lastInterval(u: number, yLo: number, yHi: number, sPre: number, gPre: number, cap: number, run: number): boolean;
+  lastInterval(u: number, yLo: number, yHi: number, statPre: number, gPre: number, cap: number, run: number): boolean;
   /** called for each inner node; return false to stop */
   inner(): boolean;
 }
@@ -69,7 +69,8 @@ function walk(layout: HalfLayout, visitor: Visitor): void {
   const { base, minima, firstShare } = layout.suffix;
   let stopped = false;
 
-  const descend = (j: number, u: number, sPre: number, gPre: number, cap: number, run: number): void => {
+  // scorePre: the pruning score so far; statPre: the statistic so far; gPre: the log-probability so far.
+  const descend = (j: number, u: number, scorePre: number, statPre: number, gPre: number, cap: number, run: number): void => {
     const table = tables[j];
     const score = table.score;
     const lo = table.lo;
@@ -87,7 +88,7 @@ function walk(layout: HalfLayout, visitor: Visitor): void {
     if (y0 < yMin) y0 = yMin;
     else if (y0 > yMax) y0 = yMax;
     const offset = x - nextBase;
-    if (sPre + score[y0 - lo] + next[offset - y0] >= limit) return;
+    if (scorePre + score[y0 - lo] + next[offset - y0] >= limit) return;
 
     if (j === size - 1) {
       // Bisection for the two ends of the accepted interval (the bound is convex in y).
@@ -95,7 +96,7 @@ function walk(layout: HalfLayout, visitor: Visitor): void {
       let outside = yMax + 1;
       while (outside - inside > 1) {
         const middle = (inside + outside) >>> 1;
-        if (sPre + score[middle - lo] + next[offset - middle] < limit) inside = middle;
+        if (scorePre + score[middle - lo] + next[offset - middle] < limit) inside = middle;
         else outside = middle;
       }
       const yHi = inside;
@@ -103,10 +104,10 @@ function walk(layout: HalfLayout, visitor: Visitor): void {
       outside = yMin - 1;
       while (inside - outside > 1) {
         const middle = outside + ((inside - outside + 1) >>> 1);
-        if (sPre + score[middle - lo] + next[offset - middle] < limit) inside = middle;
+        if (scorePre + score[middle - lo] + next[offset - middle] < limit) inside = middle;
         else outside = middle;
       }
-      if (!visitor.lastInterval(u, inside, yHi, sPre, gPre, cap, run)) stopped = true;
+      if (!visitor.lastInterval(u, inside, yHi, statPre, gPre, cap, run)) stopped = true;
       return;
     }
 
@@ -120,16 +121,16 @@ function walk(layout: HalfLayout, visitor: Visitor): void {
     const logPosition = logInteger(position);
     for (let direction = 1; direction >= -1; direction -= 2) {
       for (let y = direction === 1 ? y0 : y0 - 1; direction === 1 ? y <= yMax : y >= yMin; y += direction) {
-        if (sPre + score[y - lo] + next[offset - y] >= limit) break;
+        if (scorePre + score[y - lo] + next[offset - y] >= limit) break;
         const newRun = tied && y === cap ? run + 1 : 1;
         const logOrderings = logPosition - logInteger(newRun);
-        descend(j + 1, u + y, sPre + stat[y - lo], gPre + weight[y - lo] + logOrderings, y, newRun);
+        descend(j + 1, u + y, scorePre + score[y - lo], statPre + stat[y - lo], gPre + weight[y - lo] + logOrderings, y, newRun);
         if (stopped) return;
       }
     }
   };
 
-  descend(0, 0, 0, 0, 0, 0);
+  descend(0, 0, 0, 0, 0, 0, 0);
 }
 
 /** The half's smallest and largest possible totals. */
@@ -200,12 +201,12 @@ export function fillHalf(layout: HalfLayout, counts: HalfCounts, onElements?: (w
   let written = 0;
   let nextReport = 1 << 20;
   walk(layout, {
-    lastInterval(u, yLo, yHi, sPre, gPre, cap, run) {
+    lastInterval(u, yLo, yHi, statPre, gPre, cap, run) {
       for (let y = yLo; y <= yHi; y++) {
         const newRun = tiedLast && y === cap ? run + 1 : 1;
         const logOrderings = logLastPosition - logInteger(newRun);
         const slot = cursor[u + y - tMin]++;
-        stat[slot] = sPre + lastStat[y - lastLo];
+        stat[slot] = statPre + lastStat[y - lastLo];
         logWeight[slot] = gPre + lastWeight[y - lastLo] + logOrderings;
       }
       written += yHi - yLo + 1;

@@ -84,7 +84,6 @@ function canonicalInput(counts: readonly number[], probabilities: readonly numbe
       throw EngineInputError.at(`counts.${i}`, `must be a whole number >= 0, got ${String(count)}`);
     }
   });
-  let sum = 0;
   probabilities.forEach((share, i) => {
     if (typeof share !== 'number' || !Number.isFinite(share) || share < 0) {
       throw EngineInputError.at(`probabilities.${i}`, `must be a finite number >= 0, got ${String(share)}`);
@@ -92,18 +91,19 @@ function canonicalInput(counts: readonly number[], probabilities: readonly numbe
     if (share === 0 && counts[i] > 0) {
       throw EngineInputError.at(`counts.${i}`, `is ${counts[i]} but the category's probability is 0`);
     }
-    sum += share;
   });
+  const kept = counts
+    .map((count, i) => ({ count, share: probabilities[i] }))
+    .filter((category) => category.share > 0)
+    .sort((a, b) => a.share - b.share || a.count - b.count);
+  // Summed in canonical order, so the renormalised shares do not depend on the input order.
+  const sum = kept.reduce((total, category) => total + category.share, 0);
   if (!(Math.abs(sum - 1) <= SHARE_SUM_TOLERANCE)) {
     throw EngineInputError.at('probabilities', `must sum to 1 (within ${SHARE_SUM_TOLERANCE}), got ${sum}`);
   }
-  const kept = counts
-    .map((count, i) => ({ count, share: probabilities[i] / sum }))
-    .filter((category) => category.share > 0)
-    .sort((a, b) => a.share - b.share || a.count - b.count);
   return {
     n: kept.reduce((total, category) => total + category.count, 0),
-    shares: kept.map((category) => category.share),
+    shares: kept.map((category) => category.share / sum),
     observed: kept.map((category) => category.count),
   };
 }
