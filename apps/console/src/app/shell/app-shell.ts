@@ -19,7 +19,7 @@ export class AppShell {
   protected readonly user = this.session.user;
 
   protected signOut(): void {
-    this.session.signOut();
+    this.session.signOut({ revoke: true });
     void this.router.navigate(['/sign-in']);
   }
 }
