@@ -3,3 +3,4 @@ export * from './lib/auth';
 export * from './lib/health';
 export * from './lib/analyses';
 export * from './lib/api-error';
+export * from './lib/datasets';
