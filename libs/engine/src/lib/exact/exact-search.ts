@@ -128,8 +128,8 @@ function prepare(
   return { kind: 'ready', layouts, counts, work };
 }
 
-/** Fills and sorts both halves' lists, reporting progress over the first part of this attempt's range. */
-function materialise(context: SearchContext, layouts: HalfLayout[], counts: HalfCounts[]): HalfLists[] {
+/** Fills both halves' lists (sorting their buckets if asked), reporting progress over the first part of this attempt's range. */
+function materialise(context: SearchContext, layouts: HalfLayout[], counts: HalfCounts[], sorted: boolean): HalfLists[] {
   const total = counts.reduce((sum, c) => sum + c.elements, 0);
   let done = 0;
   const span = context.progressTo - context.progressFrom;
@@ -138,7 +138,7 @@ function materialise(context: SearchContext, layouts: HalfLayout[], counts: Half
       context.onProgress?.(context.progressFrom + (0.6 * span * (done + written)) / Math.max(total, 1)),
     );
     done += counts[h].elements;
-    sortBuckets(filled);
+    if (sorted) sortBuckets(filled);
     return filled;
   });
   return lists;
@@ -162,7 +162,7 @@ function coreSearch(context: SearchContext): Attempt {
   if (prepared.kind === 'empty') return { kind: 'all-extreme' };
   if (prepared.kind === 'over-budget') return prepared;
   context.spent += prepared.work;
-  const lists = materialise(context, prepared.layouts, prepared.counts);
+  const lists = materialise(context, prepared.layouts, prepared.counts, false);
   const second = lists.length > 1 ? lists[1] : lists[0];
   const lessExtreme = massBelowThreshold(lists[0], second, problem.n, threshold, logOffset, joinProgress(context));
   const p = Math.min(1, Math.max(0, 1 - lessExtreme));
@@ -191,7 +191,7 @@ function tailSearch(context: SearchContext, logMassBound: number): Attempt {
   if (prepared.kind === 'empty') throw new Error('the observed outcome fell below the tail cut-off');
   if (prepared.kind === 'over-budget') return prepared;
   context.spent += prepared.work;
-  const lists = materialise(context, prepared.layouts, prepared.counts);
+  const lists = materialise(context, prepared.layouts, prepared.counts, true);
   const second = lists.length > 1 ? lists[1] : lists[0];
   const logP = Math.min(0, logMassAtOrAboveThreshold(lists[0], second, problem.n, threshold, logOffset, joinProgress(context)));
   return {

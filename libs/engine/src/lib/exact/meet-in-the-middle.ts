@@ -2,16 +2,15 @@
  * Joins the two halves' lists into the exact mass of a set of outcomes.
  *
  * Every outcome is a pair (a, b) of half vectors with totals t + m = n, its statistic is
- * S(a) + S(b) and its probability exp(offset + G(a) + G(b)). For each t, both buckets are sorted
- * by partial statistic; walking a's bucket upward, the part of b's bucket that completes a to a
- * given side of the threshold shrinks monotonically, so one pointer sweep with prefix (or suffix)
- * sums of b's probabilities joins the two buckets in linear time after the sort.
+ * S(a) + S(b) and its probability exp(offset + G(a) + G(b)). So for each t the mass on one side of
+ * the threshold is Σ_a P(a) × (mass of b's bucket beyond threshold − S(a)).
  */
+import { BinnedBucket } from './binned-bucket';
 import { CompensatedSum, LogSum } from './compensated-sum';
 import { HalfLists } from './half-enumeration';
 import { sortByKey } from './sort-by-key';
 
-/** Sorts every bucket of a half's lists by partial statistic. */
+/** Sorts every bucket of a half's lists by partial statistic (needed by the tail join). */
 export function sortBuckets(lists: HalfLists): void {
   const { offsets, stat, logWeight } = lists;
   for (let i = 0; i + 1 < offsets.length; i++) {
@@ -47,7 +46,9 @@ export interface JoinProgress {
 
 /**
  * Total probability of the outcomes with S(a) + S(b) < threshold ("less extreme than observed").
- * Both lists must hold every half vector that occurs in such an outcome, with sorted buckets.
+ * Both lists must hold every half vector that occurs in such an outcome. Needs no sorting: each
+ * b bucket is binned by statistic (binned-bucket.ts) and each a asks it for the mass below
+ * threshold − S(a).
  * `second` may be the same object as `first` when the halves mirror each other.
  */
 export function massBelowThreshold(
@@ -61,26 +62,19 @@ export function massBelowThreshold(
   const a = scaledWeights(first);
   const b = second === first ? a : scaledWeights(second);
   const total = new CompensatedSum();
-  let prefix = new Float64Array(16);
+  const bucket = new BinnedBucket();
   const buckets = first.offsets.length - 1;
+  const aStat = first.stat;
+  const aWeight = a.weight;
   for (let i = 0; i < buckets; i++) {
     const t = first.tMin + i;
-    const [a0, a1] = [first.offsets[i], first.offsets[i + 1]];
+    const a0 = first.offsets[i];
+    const a1 = first.offsets[i + 1];
     const [b0, b1] = bucketRange(second, n - t);
     if (a1 === a0 || b1 === b0) continue;
-    const length = b1 - b0;
-    if (prefix.length < length + 1) prefix = new Float64Array(2 * length + 1);
-    prefix[0] = 0;
-    for (let e = 0; e < length; e++) prefix[e + 1] = prefix[e] + b.weight[b0 + e];
-    const bStat = second.stat;
-    let j = length;
+    bucket.load(second.stat, b.weight, b0, b1);
     let acc = 0;
-    for (let e = a0; e < a1; e++) {
-      const limit = threshold - first.stat[e];
-      while (j > 0 && bStat[b0 + j - 1] >= limit) j--;
-      if (j === 0) break;
-      acc += a.weight[e] * prefix[j];
-    }
+    for (let e = a0; e < a1; e++) acc += aWeight[e] * bucket.massBelow(threshold - aStat[e]);
     if (acc > 0) total.add(Math.exp(logOffset + a.scale[i] + b.scale[n - t - second.tMin]) * acc);
     if (onProgress && (i & 63) === 0) onProgress(i / buckets);
   }
@@ -88,7 +82,9 @@ export function massBelowThreshold(
 }
 
 /**
- * ln of the total probability of the listed outcomes with S(a) + S(b) ≥ threshold. Works in
+ * ln of the total probability of the listed outcomes with S(a) + S(b) ≥ threshold. Both lists'
+ * buckets must be sorted: walking a's bucket upward, the part of b's bucket that completes a to
+ * the threshold grows monotonically, so one pointer sweep joins two buckets. Works in
  * log space throughout (suffix sums of b's weights by running log-sum-exp) so that it stays
  * exact when that probability is far below the smallest double.
  */
