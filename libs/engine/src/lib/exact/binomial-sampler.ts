@@ -6,14 +6,34 @@
  * - Otherwise: BTRS, transformed rejection with squeeze (Hörmann 1993, "The generation of binomial
  *   random variates", J. Statist. Comput. Simul. 46:101–110), which needs about 1.15 uniforms per
  *   variate and accepts most draws without evaluating a logarithm. The exact acceptance test
- *   compares with the binomial log-probability ratio, evaluated with Loader's saddle-point form.
+ *   compares with ln(f(k) / f(mode)) = ln mode! + ln(n − mode)! − ln k! − ln(n − k)! + (k − mode) ln(p/q),
+ *   the factorials by Stirling's formula with its error term (two logarithms per test).
  *
  * p > 1/2 is sampled as n minus a Binomial(n, 1 − p) variate so both methods see p ≤ 1/2.
  */
-import { binomialLogProbability } from '../binomial/binomial-log-probability';
+import { stirlingError } from '../special/log-gamma';
 import { RandomSource } from './random-source';
 
 const INVERSION_MEAN_LIMIT = 10;
+const HALF_LOG_TWO_PI = 0.9189385332046727;
+
+/** ln x! = (x + ½) ln x − x + ½ ln 2π + δ(x), δ being Stirling's error term. */
+function stirlingLogFactorial(x: number): number {
+  return x === 0 ? 0 : (x + 0.5) * Math.log(x) - x + HALF_LOG_TWO_PI + stirlingError(x);
+}
+
+/** ln x! for x below this is read from a table built on first use (0.5 MB, ~2 ms). */
+const TABLE_SIZE = 1 << 16;
+let logFactorialTable: Float64Array | undefined;
+
+function logFactorial(x: number): number {
+  if (x >= TABLE_SIZE) return stirlingLogFactorial(x);
+  if (!logFactorialTable) {
+    logFactorialTable = new Float64Array(TABLE_SIZE);
+    for (let i = 0; i < TABLE_SIZE; i++) logFactorialTable[i] = stirlingLogFactorial(i);
+  }
+  return logFactorialTable[x];
+}
 
 export function sampleBinomial(random: RandomSource, n: number, p: number): number {
   if (n <= 0 || p <= 0) return 0;
@@ -54,7 +74,8 @@ function transformedRejection(random: RandomSource, n: number, p: number): numbe
   const vr = 0.92 - 4.2 / b;
   const alpha = (2.83 + 5.1 / b) * spq;
   const mode = Math.floor((n + 1) * p);
-  const logModeProbability = binomialLogProbability(mode, n, p);
+  const logOdds = Math.log(p / q);
+  let logModeFactorials = NaN; // needed only when the squeeze fails, so computed on first use
   for (;;) {
     const u = random.nextDouble() - 0.5;
     let v = random.nextDouble();
@@ -63,6 +84,7 @@ function transformedRejection(random: RandomSource, n: number, p: number): numbe
     if (k < 0 || k > n) continue;
     if (us >= 0.07 && v <= vr) return k;
     v = Math.log((v * alpha) / (a / (us * us) + b));
-    if (v <= binomialLogProbability(k, n, p) - logModeProbability) return k;
+    if (Number.isNaN(logModeFactorials)) logModeFactorials = logFactorial(mode) + logFactorial(n - mode);
+    if (v <= logModeFactorials - logFactorial(k) - logFactorial(n - k) + (k - mode) * logOdds) return k;
   }
 }
