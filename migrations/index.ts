@@ -1,6 +1,11 @@
 import type { Knex } from 'knex';
 import * as createUsers from './20261202-0001-create-users';
 import * as createAnalyses from './20261202-0002-create-analyses';
+import * as createStudies from './20261202-0003-create-studies';
+import * as createAuditEvents from './20261202-0004-create-audit-events';
+import * as extendAnalyses from './20261202-0005-extend-analyses';
+import * as createReviewsAndComments from './20261202-0006-create-reviews-and-comments';
+import * as createApiAndRefreshTokens from './20261202-0007-create-api-and-refresh-tokens';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -14,6 +19,11 @@ interface Migration {
 const migrations: ReadonlyArray<readonly [name: string, migration: Migration]> = [
   ['20261202-0001-create-users', createUsers],
   ['20261202-0002-create-analyses', createAnalyses],
+  ['20261202-0003-create-studies', createStudies],
+  ['20261202-0004-create-audit-events', createAuditEvents],
+  ['20261202-0005-extend-analyses', extendAnalyses],
+  ['20261202-0006-create-reviews-and-comments', createReviewsAndComments],
+  ['20261202-0007-create-api-and-refresh-tokens', createApiAndRefreshTokens],
 ];
 
 export const migrationSource: Knex.MigrationSource<Migration> = {

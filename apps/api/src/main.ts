@@ -4,6 +4,8 @@ import { loadConfig } from './app/config';
 import { createApp } from './app/create-app';
 import { migrateToLatest, openDatabase } from './app/database';
 import { seedDemo } from './app/demo/demo-seed';
+import { join } from 'node:path';
+import { createEnginePool } from './app/engine/engine-pool';
 
 async function main(): Promise<void> {
   const config = loadConfig(process.env);
@@ -11,7 +13,9 @@ async function main(): Promise<void> {
   const db = openDatabase(config);
   await migrateToLatest(db);
   const signIns = config.seedDemo ? await seedDemo(db, config.dataDir, config.demoPassword) : [];
-  const { app } = createApp({ config, db, logger });
+  // The worker is built beside main.js (see additionalEntryPoints in apps/api/project.json).
+  const engine = createEnginePool({ workerFile: join(__dirname, 'engine-worker.js'), timeLimitMs: config.engineTimeLimitMs });
+  const { app } = createApp({ config, db, engine, logger });
 
   const server = app.listen(config.port, config.host, () => {
     const address = server.address();
@@ -28,7 +32,7 @@ async function main(): Promise<void> {
   });
 
   const shutdown = () => {
-    server.close(() => void db.destroy().then(() => process.exit(0)));
+    server.close(() => void Promise.all([engine.close(), db.destroy()]).then(() => process.exit(0)));
   };
   process.on('SIGINT', shutdown);
   process.on('SIGTERM', shutdown);

@@ -11,6 +11,11 @@ export interface Config {
   databaseUrl?: string;
   jwtSecret: string;
   accessTokenTtlSeconds: number;
+  refreshTokenTtlSeconds: number;
+  /** Failed sign-ins allowed per address and e-mail in a 15-minute window. */
+  loginAttemptsPer15Minutes: number;
+  /** Longest one engine run may take before it is stopped. */
+  engineTimeLimitMs: number;
   /** The built console to serve beside the API, if it exists. */
   consoleDir?: string;
   /** Origin the console is served from when it is not served by the API itself (CORS). */
@@ -37,6 +42,9 @@ export function loadConfig(env: Env, cwd = process.cwd()): Config {
     databaseUrl: env['DATABASE_URL'] || undefined,
     jwtSecret: env['JWT_SECRET'] || secretFromDataDir(dataDir),
     accessTokenTtlSeconds: integer(env, 'ACCESS_TOKEN_TTL_SECONDS', 900, 30, 86_400),
+    refreshTokenTtlSeconds: integer(env, 'REFRESH_TOKEN_TTL_SECONDS', 14 * 86_400, 60, 365 * 86_400),
+    loginAttemptsPer15Minutes: integer(env, 'LOGIN_ATTEMPTS_PER_15_MINUTES', 10, 1, 10_000),
+    engineTimeLimitMs: integer(env, 'ENGINE_TIME_LIMIT_SECONDS', 30, 1, 3600) * 1000,
     consoleDir: existsSync(join(consoleDir, 'index.html')) ? consoleDir : undefined,
     consoleOrigin: env['CONSOLE_ORIGIN'] || undefined,
     seedDemo: flag(env, 'TALLYFIT_DEMO_SEED', true),

@@ -5,17 +5,26 @@ import type { Knex } from 'knex';
 import pino, { type Logger } from 'pino';
 import { pinoHttp } from 'pino-http';
 import { analysesRoutes } from './analyses/analyses.routes';
+import { auditRoutes } from './audit/audit.routes';
 import { authRoutes } from './auth/auth.routes';
 import { createAuthenticate } from './auth/authenticate';
 import type { Config } from './config';
 import { serveConsole } from './console/console-static';
+import type { EngineRunner } from './engine/engine-runner';
+import { engineRoutes } from './engine/engine.routes';
 import { healthRoutes } from './health/health.routes';
+import { peopleRoutes } from './people/people.routes';
+import { apiTokensRoutes } from './tokens/api-tokens.routes';
 import { apiNotFound, errorHandler } from './http/error-handler';
+import { reviewsRoutes } from './reviews/reviews.routes';
+import { studiesRoutes } from './studies/studies.routes';
 import { API_PREFIX, mountRoutes, type RouteDefinition } from './http/route-table';
 
 export interface AppContext {
   config: Config;
   db: Knex;
+  /** Where engine runs happen: the worker pool on a server; in-process only when a test asks for it. */
+  engine: EngineRunner;
   logger?: Logger;
 }
 
@@ -26,8 +35,18 @@ export interface TallyfitApp {
 }
 
 /** Every resource's routes. A new resource is added here and nowhere else. */
-function allRoutes({ config, db }: AppContext): RouteDefinition[] {
-  return [...healthRoutes(db), ...authRoutes(db, config), ...analysesRoutes(db)];
+function allRoutes({ config, db, engine }: AppContext): RouteDefinition[] {
+  return [
+    ...healthRoutes(db),
+    ...authRoutes(db, config),
+    ...peopleRoutes(db),
+    ...apiTokensRoutes(db),
+    ...analysesRoutes(db, engine),
+    ...reviewsRoutes(db),
+    ...engineRoutes(engine),
+    ...studiesRoutes(db),
+    ...auditRoutes(db),
+  ];
 }
 
 /**

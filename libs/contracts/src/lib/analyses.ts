@@ -1,32 +1,139 @@
 import { z } from 'zod';
-import { analysisSpecSchema, type AnalysisResult } from '@tallyfit/engine';
+import { analysisSpecSchema, testNames, type AnalysisResult } from '@tallyfit/engine';
+import { MAX_PAGE_SIZE } from './pagination';
+import { personRefSchema } from './people-ref';
+
+/** Where an analysis is in review: draft → in review → signed off | returned (a returned one can be resubmitted). */
+export const ANALYSIS_STATUSES = ['draft', 'in_review', 'signed_off', 'returned'] as const;
+export const analysisStatusSchema = z.enum(ANALYSIS_STATUSES);
+export type AnalysisStatus = z.infer<typeof analysisStatusSchema>;
+
+const title = z.string().trim().min(1, { message: 'title must not be empty' }).max(200, { message: 'title must be at most 200 characters' });
+const notes = z.string().max(10_000, { message: 'notes must be at most 10000 characters' });
 
 export const createAnalysisRequestSchema = z.object({
-  title: z.string().trim().min(1, { message: 'title must not be empty' }).max(200),
+  title,
   spec: analysisSpecSchema,
+  /** The study the analysis belongs to; without it the analysis is the author's own. */
+  studyId: z.number().int().positive({ message: 'studyId must be a positive whole number' }).optional(),
+  notes: notes.optional(),
 });
 export type CreateAnalysisRequest = z.infer<typeof createAnalysisRequestSchema>;
 
+export const updateAnalysisRequestSchema = z
+  .object({ title: title.optional(), notes: notes.nullable().optional() })
+  .refine((body) => body.title !== undefined || body.notes !== undefined, { message: 'send title, notes or both' });
+export type UpdateAnalysisRequest = z.infer<typeof updateAnalysisRequestSchema>;
+
+/** Re-run with the stored spec (on today's engine), or with a changed spec. */
+export const rerunAnalysisRequestSchema = z.object({ spec: analysisSpecSchema.optional() });
+export type RerunAnalysisRequest = z.infer<typeof rerunAnalysisRequestSchema>;
+
+const studyRefSchema = z.object({ id: z.number().int(), name: z.string() });
+
+const analysisCommonShape = {
+  id: z.number().int(),
+  title: z.string(),
+  notes: z.string().nullable(),
+  engineVersion: z.string(),
+  author: personRefSchema,
+  study: studyRefSchema.nullable(),
+  datasetId: z.number().int().nullable(),
+  status: analysisStatusSchema,
+  version: z.number().int(),
+  seriesId: z.number().int(),
+  previousId: z.number().int().nullable(),
+  isLatest: z.boolean(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+};
+
 /** An analysis as the API returns it: the stored spec, its result and who ran it with which engine. */
-export interface AnalysisRecord {
-  id: number;
-  title: string;
+export const analysisRecordSchema = z.object({
+  ...analysisCommonShape,
+  spec: analysisSpecSchema,
+  result: z.record(z.string(), z.unknown()).describe("the engine's result (see the engine's AnalysisResult)"),
+});
+export type AnalysisRecord = Omit<z.infer<typeof analysisRecordSchema>, 'result' | 'spec'> & {
   spec: CreateAnalysisRequest['spec'];
   result: AnalysisResult;
-  engineVersion: string;
-  author: { id: number; name: string };
-  createdAt: string;
-}
+};
 
 /** One row of a list of analyses: enough to browse without loading every result. */
-export interface AnalysisSummary {
-  id: number;
-  title: string;
-  hypothesisKind: string;
-  n: number;
-  k: number;
-  p: number | null;
-  engineVersion: string;
-  author: { id: number; name: string };
-  createdAt: string;
-}
+export const analysisSummarySchema = z.object({
+  ...analysisCommonShape,
+  hypothesisKind: z.string(),
+  n: z.number().int(),
+  k: z.number().int(),
+  p: z.number().nullable().describe('the p-value the verdict rests on'),
+  alpha: z.number(),
+  significant: z.boolean().nullable(),
+  tests: z.array(z.string()),
+});
+export type AnalysisSummary = z.infer<typeof analysisSummarySchema>;
+
+export const HISTORY_SORTS = ['date', 'study', 'author', 'p', 'status'] as const;
+
+const booleanText = (name: string) =>
+  z.enum(['true', 'false'], { message: `${name} must be true or false` }).transform((value) => value === 'true');
+const dateText = (name: string) =>
+  z.string().refine((value) => !Number.isNaN(Date.parse(value)), { message: `${name} must be a date or date-time (ISO 8601)` });
+
+/** The history's query string: page, sort and filters (all optional). */
+export const listAnalysesQuerySchema = z.object({
+  page: z.coerce.number().int().min(1, { message: 'page must be 1 or more' }).default(1),
+  pageSize: z.coerce
+    .number()
+    .int()
+    .min(1, { message: 'pageSize must be 1 or more' })
+    .max(MAX_PAGE_SIZE, { message: `pageSize must be at most ${MAX_PAGE_SIZE}` })
+    .default(25),
+  sort: z.enum(HISTORY_SORTS, { message: `sort must be one of ${HISTORY_SORTS.join(', ')}` }).default('date'),
+  order: z.enum(['asc', 'desc'], { message: 'order must be asc or desc' }).default('desc'),
+  studyId: z.coerce.number().int().positive({ message: 'studyId must be a positive whole number' }).optional(),
+  /** `me` for the caller's own analyses, or a person's id. */
+  author: z
+    .string()
+    .regex(/^(me|[1-9]\d*)$/, { message: 'author must be "me" or a person\'s id' })
+    .optional(),
+  test: z.enum(testNames, { message: `test must be one of ${testNames.join(', ')}` }).optional(),
+  status: analysisStatusSchema.optional(),
+  from: dateText('from').optional(),
+  to: dateText('to').optional(),
+  significant: booleanText('significant').optional(),
+  q: z.string().trim().min(1, { message: 'q must not be empty' }).max(200).optional(),
+  /** Include earlier versions of re-run analyses (by default only the latest version is listed). */
+  allVersions: booleanText('allVersions').optional(),
+});
+/** The query as a client writes it (all optional, text values). */
+export type ListAnalysesQuery = z.input<typeof listAnalysesQuerySchema>;
+/** The query after parsing, with defaults filled in. */
+export type ListAnalysesFilters = z.output<typeof listAnalysesQuerySchema>;
+
+/** One test's figures before and after a re-run. */
+export const testChangeSchema = z.object({
+  test: z.string(),
+  before: z.object({ statistic: z.number().nullable(), p: z.number() }).nullable(),
+  after: z.object({ statistic: z.number().nullable(), p: z.number() }).nullable(),
+  statisticDifference: z.number().nullable(),
+  pDifference: z.number().nullable(),
+});
+
+/** What a re-run changed, compared with the version it re-ran. */
+export const analysisChangesSchema = z.object({
+  previousId: z.number().int(),
+  engineVersion: z.object({ before: z.string(), after: z.string(), changed: z.boolean() }),
+  specChanged: z.boolean(),
+  tests: z.array(testChangeSchema),
+  decision: z.object({
+    before: z.boolean(),
+    after: z.boolean(),
+    changed: z.boolean(),
+  }),
+  /** Plain sentences for people. */
+  summary: z.array(z.string()),
+});
+export type AnalysisChanges = z.infer<typeof analysisChangesSchema>;
+
+export const rerunAnalysisResponseSchema = z.object({ analysis: analysisRecordSchema, changes: analysisChangesSchema });
+export type RerunAnalysisResponse = { analysis: AnalysisRecord; changes: AnalysisChanges };

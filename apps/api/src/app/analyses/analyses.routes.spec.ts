@@ -32,13 +32,14 @@ describe('analyses', () => {
     expect(row.p).toBeCloseTo(0.0179, 4);
   });
 
-  it('lists only the caller’s own analyses, newest first', async () => {
+  it('lists the caller’s own analyses with author=me, newest first, as a page', async () => {
     await post('analyst', { title: 'Second', spec: seedlingSpec });
     await post('admin', { title: 'Admin’s own', spec: seedlingSpec });
-    const response = await request(ctx.app).get('/api/v1/analyses').set('Authorization', `Bearer ${ctx.tokens.analyst}`);
+    const response = await request(ctx.app).get('/api/v1/analyses?author=me').set('Authorization', `Bearer ${ctx.tokens.analyst}`);
     expect(response.status).toBe(200);
-    expect(response.body.map((a: { title: string }) => a.title)).toEqual(['Second', 'Seedlings']);
-    expect(response.body[0]).toMatchObject({ hypothesisKind: 'equal', n: 3647, k: 2 });
+    expect(response.body).toMatchObject({ total: 2, page: 1, pageSize: 25 });
+    expect(response.body.items.map((a: { title: string }) => a.title)).toEqual(['Second', 'Seedlings']);
+    expect(response.body.items[0]).toMatchObject({ hypothesisKind: 'equal', n: 3647, k: 2, status: 'draft', version: 1 });
   });
 
   it('answers 400 naming the field, and stores nothing, for an invalid spec', async () => {

@@ -2,14 +2,17 @@ import type { RequestHandler } from 'express';
 import type { Knex } from 'knex';
 import { Passport } from 'passport';
 import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
+import { ownerOfApiToken } from '../tokens/api-tokens.service';
 import { unauthorized } from '../http/http-error';
 import { JWT_ALGORITHM, type AccessTokenClaims } from './access-token';
+import { API_TOKEN_PREFIX } from './token-hash';
 import { findUserById, publicUser } from './users.service';
 
 /**
- * Builds the bearer-token check for one app instance (its own Passport, so test apps with
- * different secrets never share state). The person is looked up on every request, so a
- * disabled account or a changed role takes effect at once rather than when the token expires.
+ * Builds the bearer check for one app instance (its own Passport, so test apps with different
+ * secrets never share state). A bearer starting with `tf_` is a personal API token and acts with
+ * its owner's role; anything else must be a signed access JWT. The person is looked up on every
+ * request, so a disabled account or a changed role takes effect at once.
  */
 export function createAuthenticate(db: Knex, jwtSecret: string): RequestHandler {
   const passport = new Passport();
@@ -28,7 +31,19 @@ export function createAuthenticate(db: Knex, jwtSecret: string): RequestHandler 
       },
     ),
   );
+  const bearerOf = ExtractJwt.fromAuthHeaderAsBearerToken();
   return (req, res, next) => {
+    const bearer = bearerOf(req);
+    if (bearer?.startsWith(API_TOKEN_PREFIX)) {
+      ownerOfApiToken(db, bearer)
+        .then((owner) => {
+          if (!owner) return next(unauthorized('the API token is unknown or revoked'));
+          req.user = publicUser(owner);
+          next();
+        })
+        .catch(next);
+      return;
+    }
     // A custom callback so a failure becomes our JSON 401 instead of passport's plain-text one.
     passport.authenticate('jwt', { session: false }, (error: unknown, user: Express.User | false) => {
       if (error) return next(error);

@@ -5,7 +5,9 @@ import type { Knex } from 'knex';
 import { ROLES, type Role } from '@tallyfit/contracts';
 import { createAnalysis } from '../analyses/analyses.service';
 import { countUsers, createUser } from '../auth/users.service';
-import { DEMO_ANALYSES } from './demo-scenarios';
+import { inProcessEngine } from '../engine/engine-runner';
+import { addStudyMember, createStudy } from '../studies/studies.service';
+import { DEMO_ANALYSES, DEMO_STUDY } from './demo-scenarios';
 
 export interface DemoSignIn {
   role: Role;
@@ -21,7 +23,8 @@ const DEMO_NAMES: Record<Role, string> = {
 };
 
 /**
- * On an empty database: one demo person per role and a few analyses of invented scenarios.
+ * On an empty database: one demo person per role, a demo study (the analyst owns it, the viewer
+ * reads it) and a few analyses of invented scenarios in it.
  * Passwords are generated per data folder (or fixed by TALLYFIT_DEMO_PASSWORD for tests) and kept
  * in a file readable by its owner only, so every start can print them again.
  */
@@ -41,7 +44,12 @@ export async function seedDemo(db: Knex, dataDir: string, fixedPassword?: string
       people.push(await createUser(trx, { ...signIn, name: DEMO_NAMES[signIn.role] }));
     }
     const analyst = people.find((person) => person.role === 'analyst')!;
-    for (const demo of DEMO_ANALYSES) await createAnalysis(trx, analyst, demo);
+    const viewer = people.find((person) => person.role === 'viewer')!;
+    const study = await createStudy(trx, analyst, DEMO_STUDY);
+    await addStudyMember(trx, analyst, study.id, { userId: viewer.id, studyRole: 'reader' });
+    // A one-off seed before the server listens: running the few small demo specs in-process is fine.
+    const engine = inProcessEngine();
+    for (const demo of DEMO_ANALYSES) await createAnalysis(trx, engine, analyst, { ...demo, studyId: study.id });
   });
   writeFileSync(file, JSON.stringify(signIns, null, 2) + '\n', { mode: 0o600 });
   return signIns;

@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { ENGINE_VERSION } from '@tallyfit/engine';
+import { migrationNames } from '@tallyfit/migrations';
 import { createTestApp, type TestContext } from '../../testing/test-app';
 
 describe('GET /api/v1/health', () => {
@@ -22,7 +23,7 @@ describe('GET /api/v1/health', () => {
     await ctx.db.migrate.down();
     const response = await request(ctx.app).get('/api/v1/health');
     expect(response.status).toBe(503);
-    expect(response.body.migrations.pending).toEqual(['20261202-0002-create-analyses']);
+    expect(response.body.migrations.pending).toEqual([migrationNames[migrationNames.length - 1]]);
     await ctx.db.migrate.latest();
   });
 });

@@ -1,4 +1,5 @@
 import type { Express, NextFunction, Request, RequestHandler, Response } from 'express';
+import type { z } from 'zod';
 import type { Role } from '@tallyfit/contracts';
 import { forbidden, unauthorized } from './http-error';
 
@@ -14,22 +15,50 @@ export const anyRole = rolesAccess('admin', 'lead', 'analyst', 'viewer');
 
 export type HttpMethod = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
+/** The zod schemas of a route's input, for the OpenAPI document (handlers still parse with parseInput). */
+export interface RouteRequestSchemas {
+  body?: z.ZodType;
+  query?: z.ZodType;
+  params?: z.ZodType;
+}
+
+/** A response that is not plain JSON, or that needs its own description. */
+export interface RouteResponse {
+  description: string;
+  /** Defaults to application/json. */
+  contentType?: string;
+  /** The body's schema; absent for an empty body or a file. */
+  schema?: z.ZodType;
+}
+
 export interface RouteDefinition {
   method: HttpMethod;
-  /** Path below /api/v1, in Express 5 syntax. */
+  /** Path below the base path (normally /api/v1), in Express 5 syntax. */
   path: string;
   access: Access;
   summary: string;
-  handler: (req: Request, res: Response) => Promise<void> | void;
+  /** Groups routes in the OpenAPI document (defaults to the path's first segment). */
+  tag?: string;
+  request?: RouteRequestSchemas;
+  /** Success responses by status: a JSON schema or a full description. Errors are documented for every route. */
+  responses?: Partial<Record<number, z.ZodType | RouteResponse>>;
+  /** Mount somewhere other than /api/v1 (the browsable docs live at /api/docs). */
+  basePath?: string;
+  /** Middleware run after the access check and before the handler (a rate limit, an upload parser). */
+  before?: RequestHandler[];
+  handler: (req: Request, res: Response, next: NextFunction) => Promise<void> | void;
 }
 
 export const API_PREFIX = '/api/v1';
+
+/** The full path Express sees for a route. */
+export const fullPath = (route: Pick<RouteDefinition, 'path' | 'basePath'>): string => (route.basePath ?? API_PREFIX) + route.path;
 
 /** Mounts the routes, each behind authentication (unless public) and its role check. */
 export function mountRoutes(app: Express, routes: readonly RouteDefinition[], authenticate: RequestHandler): void {
   for (const route of routes) {
     const guards: RequestHandler[] = route.access.kind === 'public' ? [] : [authenticate, requireRole(route.access.roles)];
-    app[route.method](API_PREFIX + route.path, ...guards, wrap(route.handler));
+    app[route.method](fullPath(route), ...guards, ...(route.before ?? []), wrap(route.handler));
   }
 }
 
@@ -43,5 +72,5 @@ function requireRole(roles: readonly Role[]): RequestHandler {
 
 /** Express 5 forwards rejected promises itself; this keeps handlers free of try/catch and typed. */
 function wrap(handler: RouteDefinition['handler']): RequestHandler {
-  return (req: Request, res: Response, next: NextFunction) => Promise.resolve(handler(req, res)).catch(next);
+  return (req: Request, res: Response, next: NextFunction) => Promise.resolve(handler(req, res, next)).catch(next);
 }

@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
-import type { AnalysisRecord, AnalysisSummary, CreateAnalysisRequest } from '@tallyfit/contracts';
-import type { Observable } from 'rxjs';
+import type { AnalysisRecord, AnalysisSummary, CreateAnalysisRequest, Page } from '@tallyfit/contracts';
+import { map, type Observable } from 'rxjs';
 
 /** Analyses over the API: run and store one, list one's own, read one. */
 @Injectable({ providedIn: 'root' })
@@ -12,8 +12,11 @@ export class AnalysesApi {
     return this.http.post<AnalysisRecord>('/api/v1/analyses', request);
   }
 
+  /** The newest page (up to 100) of the signed-in person's own analyses. */
   listOwn(): Observable<AnalysisSummary[]> {
-    return this.http.get<AnalysisSummary[]>('/api/v1/analyses');
+    return this.http
+      .get<Page<AnalysisSummary>>('/api/v1/analyses', { params: { author: 'me', pageSize: 100 } })
+      .pipe(map((page) => page.items));
   }
 
   get(id: number): Observable<AnalysisRecord> {

@@ -1,0 +1,127 @@
+import type { Knex } from 'knex';
+import type { AnalysisRecord, AnalysisStatus, Comment, Review, User } from '@tallyfit/contracts';
+import { getAnalysisById, getReadableAnalysis } from '../analyses/analyses.service';
+import { recordAudit } from '../audit/audit.service';
+import { insertedId, isoDate, now } from '../http/db-time';
+import { conflict, forbidden } from '../http/http-error';
+
+type Decision = Review['decision'];
+
+/** The review path: draft → in review → signed off | returned; a returned analysis can be resubmitted. */
+const TRANSITIONS: Record<Decision, { from: readonly AnalysisStatus[]; to: AnalysisStatus; verb: string }> = {
+  submitted: { from: ['draft', 'returned'], to: 'in_review', verb: 'submitted for review' },
+  signed_off: { from: ['in_review'], to: 'signed_off', verb: 'signed off' },
+  returned: { from: ['in_review'], to: 'returned', verb: 'returned' },
+};
+
+const STATUS_WORDS: Record<AnalysisStatus, string> = {
+  draft: 'a draft',
+  in_review: 'in review',
+  signed_off: 'signed off',
+  returned: 'returned',
+};
+
+function checkReviewer(caller: User, analysis: AnalysisRecord, decision: Decision): void {
+  if (decision === 'submitted') {
+    if (analysis.author.id !== caller.id && caller.role !== 'admin') {
+      throw forbidden('only the author of an analysis (or an admin) may submit it for review');
+    }
+  } else if (caller.role !== 'lead' && caller.role !== 'admin') {
+    throw forbidden('only a lead or an admin may sign off or return an analysis');
+  }
+}
+
+/** Records a review decision and moves the analysis's status, in one transaction with its audit event. */
+export async function decideReview(
+  db: Knex,
+  caller: User,
+  analysisId: number,
+  decision: Decision,
+  comment?: string,
+): Promise<AnalysisRecord> {
+  const analysis = await getReadableAnalysis(db, caller, analysisId);
+  checkReviewer(caller, analysis, decision);
+  const transition = TRANSITIONS[decision];
+  if (!analysis.isLatest) throw conflict(`analysis ${analysisId} has a newer version; review the latest one`);
+  if (!transition.from.includes(analysis.status)) {
+    throw conflict(`analysis ${analysisId} is ${STATUS_WORDS[analysis.status]}, so it cannot be ${transition.verb}`);
+  }
+  await db.transaction(async (trx) => {
+    // The status in the WHERE makes two racing decisions safe: only one finds the row still in its old status.
+    const moved = await trx('analyses')
+      .where({ id: analysisId, status: analysis.status })
+      .update({ status: transition.to, updated_at: now(trx) });
+    if (moved !== 1) throw conflict(`analysis ${analysisId} changed status meanwhile; reload it`);
+    await trx('analysis_reviews').insert({ analysis_id: analysisId, actor_id: caller.id, decision, comment: comment ?? null });
+    await recordAudit(trx, {
+      actorId: caller.id,
+      action: 'review',
+      entityType: 'analysis',
+      entityId: analysisId,
+      studyId: analysis.study?.id ?? null,
+      summary: `${transition.verb} analysis "${analysis.title}"`,
+      before: { status: analysis.status },
+      after: { status: transition.to, comment: comment ?? null },
+    });
+  });
+  return getAnalysisById(db, analysisId);
+}
+
+export async function listReviews(db: Knex, caller: User, analysisId: number): Promise<Review[]> {
+  await getReadableAnalysis(db, caller, analysisId);
+  const rows = await db('analysis_reviews')
+    .join('users', 'users.id', 'analysis_reviews.actor_id')
+    .where('analysis_reviews.analysis_id', analysisId)
+    .select('analysis_reviews.*', 'users.name as actor_name')
+    .orderBy([{ column: 'analysis_reviews.created_at' }, { column: 'analysis_reviews.id' }]);
+  return rows.map((row) => ({
+    id: row.id,
+    analysisId: row.analysis_id,
+    decision: row.decision,
+    comment: row.comment,
+    by: { id: row.actor_id, name: row.actor_name },
+    createdAt: isoDate(row.created_at),
+  }));
+}
+
+const toComment = (row: { id: number; analysis_id: number; body: string; author_id: number; author_name: string; created_at: string | Date }): Comment => ({
+  id: row.id,
+  analysisId: row.analysis_id,
+  body: row.body,
+  author: { id: row.author_id, name: row.author_name },
+  createdAt: isoDate(row.created_at),
+});
+
+function selectComments(db: Knex) {
+  return db('analysis_comments')
+    .join('users', 'users.id', 'analysis_comments.author_id')
+    .select('analysis_comments.*', 'users.name as author_name');
+}
+
+export async function listComments(db: Knex, caller: User, analysisId: number): Promise<Comment[]> {
+  await getReadableAnalysis(db, caller, analysisId);
+  const rows = await selectComments(db)
+    .where('analysis_comments.analysis_id', analysisId)
+    .orderBy([{ column: 'analysis_comments.created_at' }, { column: 'analysis_comments.id' }]);
+  return rows.map(toComment);
+}
+
+/** Anyone who can read an analysis may comment on it. */
+export async function addComment(db: Knex, caller: User, analysisId: number, body: string): Promise<Comment> {
+  const analysis = await getReadableAnalysis(db, caller, analysisId);
+  const id = await db.transaction(async (trx) => {
+    const [row] = await trx('analysis_comments').insert({ analysis_id: analysisId, author_id: caller.id, body }).returning('id');
+    const commentId = insertedId(row);
+    await recordAudit(trx, {
+      actorId: caller.id,
+      action: 'create',
+      entityType: 'comment',
+      entityId: commentId,
+      studyId: analysis.study?.id ?? null,
+      summary: `commented on analysis "${analysis.title}"`,
+      after: { analysisId, body: body.slice(0, 200) },
+    });
+    return commentId;
+  });
+  return toComment(await selectComments(db).where('analysis_comments.id', id).first());
+}
