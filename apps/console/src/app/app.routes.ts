@@ -14,6 +14,16 @@ export const appRoutes: Routes = [
     children: [
       { path: '', pathMatch: 'full', redirectTo: 'analyses' },
       {
+        path: 'studies',
+        title: 'Studies · Tallyfit',
+        loadComponent: () => import('./pages/studies/studies-page').then((m) => m.StudiesPage),
+      },
+      {
+        path: 'studies/:id',
+        title: 'Study · Tallyfit',
+        loadComponent: () => import('./pages/study/study-page').then((m) => m.StudyPage),
+      },
+      {
         path: 'analyses',
         title: 'My analyses · Tallyfit',
         loadComponent: () => import('./pages/analyses/analyses-page').then((m) => m.AnalysesPage),
