@@ -76,7 +76,9 @@ export function noncentralChiSquareTails(x: number, df: number, noncentrality: n
     lower += weight(j) * p;
     if (j > first) p += gammaStep(j - 1);
   }
-  return { upper: Math.min(1, upper), lower: Math.min(1, lower) };
+  // Each sum is accurate relative to its own size; the larger tail is best taken as the
+  // complement of the smaller, which removes the rounding of a long sum of weights near 1.
+  return upper <= lower ? { upper, lower: 1 - upper } : { upper: 1 - lower, lower };
 }
 
 export function noncentralChiSquareSurvival(x: number, df: number, noncentrality: number): number {

@@ -79,10 +79,29 @@ function chooseFamily(hypothesis: DistributionHypothesis, values: readonly Count
   }
 }
 
-function checkSupport(values: readonly CountedValue[], family: DiscreteFamily, hypothesis: DistributionHypothesis): void {
+/** The values a family can produce, known before any parameter is estimated. */
+function supportOf(hypothesis: DistributionHypothesis, values: readonly CountedValue[]): { min: number; max: number } {
+  const params = hypothesis.params ?? {};
+  switch (hypothesis.family) {
+    case 'binomial':
+      if (params.trials === undefined) {
+        throw EngineInputError.at('hypothesis.params.trials', 'a binomial fit needs params.trials, the number of trials per observation');
+      }
+      return { min: 0, max: params.trials };
+    case 'benford':
+      return { min: 1, max: 9 };
+    case 'discrete-uniform':
+      return { min: params.min ?? values[0].value, max: params.max ?? values[values.length - 1].value };
+    default:
+      return { min: 0, max: Infinity };
+  }
+}
+
+function checkSupport(values: readonly CountedValue[], hypothesis: DistributionHypothesis): void {
+  const support = supportOf(hypothesis, values);
   for (const { value, index } of values) {
-    if (value < family.supportMin || value > family.supportMax) {
-      const range = family.supportMax === Infinity ? `${family.supportMin} or more` : `${family.supportMin} to ${family.supportMax}`;
+    if (value < support.min || value > support.max) {
+      const range = support.max === Infinity ? `${support.min} or more` : `${support.min} to ${support.max}`;
       throw EngineInputError.at(
         `observed.labels.${index}`,
         `the value ${value} is outside what ${hypothesis.family} can produce (${range})`,
@@ -102,9 +121,9 @@ function fitCountedValues(labels: readonly string[], counts: readonly number[], 
     throw EngineInputError.at('hypothesis.breaks', 'breaks apply only to the normal family');
   }
   const values = readCountedValues(labels, counts, hypothesis.family);
+  checkSupport(values, hypothesis);
   const choice = chooseFamily(hypothesis, values);
   const { family } = choice;
-  checkSupport(values, family, hypothesis);
 
   const cellCount = hypothesis.cells !== undefined && hypothesis.cells < values.length ? hypothesis.cells : values.length;
   const pooled = cellCount < values.length;

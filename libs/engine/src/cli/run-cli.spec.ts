@@ -1,0 +1,93 @@
+import { ENGINE_VERSION } from '../lib/engine-version';
+import { runCli, type CliIo } from './run-cli';
+
+interface Run {
+  code: number;
+  out: string;
+  err: string;
+}
+
+async function run(argv: string[], files: Record<string, string> = {}, stdin = ''): Promise<Run> {
+  let out = '';
+  let err = '';
+  const io: CliIo = {
+    readText: async (path) => {
+      if (!(path in files)) throw new Error(`ENOENT: no such file '${path}'`);
+      return files[path];
+    },
+    readStdin: async () => stdin,
+    writeOut: (text) => (out += text),
+    writeErr: (text) => (err += text),
+  };
+  const code = await runCli(argv, io);
+  return { code, out, err };
+}
+
+const spec = JSON.stringify({ observed: { labels: ['left', 'right'], counts: [1752, 1895] }, hypothesis: { kind: 'equal' } });
+
+describe('tallyfit CLI', () => {
+  it('analyze reads a file or standard input and prints the result JSON', async () => {
+    const fromFile = await run(['analyze', 'spec.json'], { 'spec.json': spec });
+    expect(fromFile.code).toBe(0);
+    const result = JSON.parse(fromFile.out);
+    expect(result.tests.pearson.p).toBeCloseTo(0.0179, 4);
+    expect(result.engineVersion).toBe(ENGINE_VERSION);
+    const fromStdin = await run(['analyze', '-'], {}, spec);
+    expect(JSON.parse(fromStdin.out)).toEqual(result);
+  });
+
+  it('power prints { power, criticalValue, ncp }', async () => {
+    const { code, out } = await run(['power', '--w', '0.3', '--df', '1', '--n=100']);
+    expect(code).toBe(0);
+    const printed = JSON.parse(out);
+    expect(Object.keys(printed)).toEqual(['power', 'criticalValue', 'ncp']);
+    expect(printed.power).toBeCloseTo(0.8508, 4);
+  });
+
+  it('sample-size prints { n, nContinuous, power }', async () => {
+    const { code, out } = await run(['sample-size', '--w', '0.1', '--df', '1', '--power', '0.8', '--alpha', '0.05']);
+    expect(code).toBe(0);
+    expect(JSON.parse(out)).toMatchObject({ n: 785 });
+  });
+
+  it('chisq prints the tails at x, or the critical value for alpha', async () => {
+    const tails = JSON.parse((await run(['chisq', '--x', '1500', '--df', '1'])).out);
+    expect(tails.upper).toBe(0);
+    expect(tails.logUpper).toBeCloseTo(-753.883, 3);
+    expect(tails.lower).toBe(1);
+    const quantile = JSON.parse((await run(['chisq', '--alpha', '0.05', '--df', '3'])).out);
+    expect(quantile.quantile).toBeCloseTo(7.8147, 4);
+  });
+
+  it.each([
+    [[], 'tallyfit: no command given (try tallyfit --help)'],
+    [['fit'], 'tallyfit: unknown command "fit" (expected analyze, power, sample-size or chisq)'],
+    [['power', '--w', 'abc', '--df', '1', '--n', '5'], 'tallyfit: --w must be a number, got "abc"'],
+    [['power', '--w', '0.3', '--df', '1'], 'tallyfit: --n is required'],
+    [['power', '--w', '0.3', '--df', '1', '--n', '5', '--bogus', '1'], 'tallyfit: unknown option --bogus (expected --w, --df, --n, --alpha)'],
+    [['power', '--w', '0.3', '--df', '1.5', '--n', '5'], 'tallyfit: invalid input: df: df must be a whole number >= 1, got 1.5'],
+    [['chisq', '--x', '1', '--alpha', '0.05', '--df', '2'], 'tallyfit: chisq needs either --x or --alpha (not both)'],
+    [['chisq', '--alpha', '0', '--df', '2'], 'tallyfit: --alpha must be between 0 and 1, got 0'],
+    [['analyze'], 'tallyfit: analyze needs exactly one argument: a spec file, or - for standard input'],
+    [['analyze', 'missing.json'], "tallyfit: cannot read missing.json: ENOENT: no such file 'missing.json'"],
+  ])('rejects %j with one line on stderr and exit code 2', async (argv, message) => {
+    const { code, out, err } = await run(argv as string[]);
+    expect(code).toBe(2);
+    expect(out).toBe('');
+    expect(err).toBe(`${message}\n`);
+  });
+
+  it('reports bad JSON and an invalid spec on one line with exit code 2', async () => {
+    const badJson = await run(['analyze', 'x.json'], { 'x.json': '{ nope' });
+    expect(badJson.code).toBe(2);
+    expect(badJson.err).toMatch(/^tallyfit: x\.json is not valid JSON: .*\n$/);
+    const invalid = await run(['analyze', '-'], {}, JSON.stringify({ observed: { labels: ['a'], counts: [1] }, hypothesis: { kind: 'equal' } }));
+    expect(invalid.code).toBe(2);
+    expect(invalid.err).toBe('tallyfit: invalid input: observed.labels: at least 2 categories are needed, got 1\n');
+  });
+
+  it('prints help and the version', async () => {
+    expect((await run(['--help'])).out).toMatch(/tallyfit analyze FILE\|-/);
+    expect((await run(['--version'])).out).toBe(`${ENGINE_VERSION}\n`);
+  });
+});
