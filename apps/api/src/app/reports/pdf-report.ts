@@ -1,0 +1,123 @@
+import PDFDocument from 'pdfkit';
+import { formatNumber } from './report-numbers';
+import { drawObservedExpectedChart } from './pdf-bar-chart';
+import type { PdfFonts } from './pdf-fonts';
+import { drawTable } from './pdf-table';
+import { MUTED, PdfText } from './pdf-text';
+import { reportFacts, statisticsLines, testName, type ReportSource } from './report-source';
+
+export interface PdfOptions {
+  /** compress page content (on for delivery; tests turn it off to read the text) */
+  compress?: boolean;
+}
+
+/**
+ * The analysis as a PDF: title and facts, the verdict, every test's statistics line, a table of
+ * the tests, a chart of observed against expected counts, the table of categories, the method and
+ * result sentences, and what the test does not show.
+ */
+export function pdfReport(source: ReportSource, fonts: PdfFonts, options: PdfOptions = {}): Promise<Buffer> {
+  const doc = new PDFDocument({
+    size: 'A4',
+    margins: { top: 56, bottom: 56, left: 56, right: 56 },
+    compress: options.compress ?? true,
+    info: { Title: source.title, Author: source.authorName, Creator: `Tallyfit (engine ${source.engineVersion})` },
+  });
+  const chunks: Buffer[] = [];
+  doc.on('data', (chunk: Buffer) => chunks.push(chunk));
+  const done = new Promise<Buffer>((resolve, reject) => {
+    doc.on('end', () => resolve(Buffer.concat(chunks)));
+    doc.on('error', reject);
+  });
+  writeReport(new PdfText(doc, fonts), source);
+  doc.end();
+  return done;
+}
+
+function writeReport(text: PdfText, source: ReportSource): void {
+  const { doc } = text;
+  const { result } = source;
+
+  text.paragraph(source.title, { size: 18, weight: 700 });
+  doc.moveDown(0.3);
+  text.paragraph(reportFacts(source).map(([label, value]) => `${label}: ${value}`).join('   ·   '), { size: 8.5, color: MUTED });
+  doc.moveDown(0.8);
+  text.paragraph(result.conclusion.verdict, { size: 11 });
+
+  text.heading('Statistics');
+  for (const [test, line] of statisticsLines(result)) text.paragraph(`${test}: ${line}`, { size: 10 });
+
+  text.heading('Tests');
+  const testRows = Object.entries(result.tests)
+    .filter(([, outcome]) => outcome !== undefined)
+    .map(([key, outcome]) => {
+      const withStatistic = outcome as { statistic?: number; df?: number; p: number; method?: string; se?: number };
+      return [
+        testName(key),
+        withStatistic.statistic === undefined ? '—' : formatNumber(withStatistic.statistic, 3),
+        withStatistic.df === undefined ? '—' : String(withStatistic.df),
+        formatNumber(withStatistic.p, 4),
+        withStatistic.method ? `${withStatistic.method}${withStatistic.se ? `, SE ${formatNumber(withStatistic.se, 2)}` : ''}` : '',
+      ];
+    });
+  drawTable(
+    text,
+    [
+      { title: 'Test', share: 3 },
+      { title: 'Statistic', share: 1.3, align: 'right' },
+      { title: 'df', share: 0.7, align: 'right' },
+      { title: 'p', share: 1.3, align: 'right' },
+      { title: 'How computed', share: 2 },
+    ],
+    testRows,
+  );
+  text.paragraph(
+    `Effect size: Cohen's w = ${formatNumber(result.effectSize.w, 3)} (${result.effectSize.size}). Smallest expected count: ${formatNumber(result.assumptions.minExpected, 3)}.`,
+    { size: 9.5 },
+  );
+
+  text.heading('Observed and expected counts');
+  drawObservedExpectedChart(
+    text,
+    result.categories.map((row) => ({ label: row.label, observed: row.observed, expected: row.expected })),
+  );
+
+  text.heading('Categories');
+  drawTable(
+    text,
+    [
+      { title: 'Category', share: 3 },
+      { title: 'Observed', share: 1.2, align: 'right' },
+      { title: 'Expected', share: 1.2, align: 'right' },
+      { title: 'Residual', share: 1.1, align: 'right' },
+      { title: 'Adjusted residual', share: 1.5, align: 'right' },
+      { title: 'Adjusted p', share: 1.2, align: 'right' },
+    ],
+    result.categories.map((row) => [
+      row.label,
+      formatNumber(row.observed, 6),
+      formatNumber(row.expected, 4),
+      formatNumber(row.residual, 3),
+      formatNumber(row.adjustedResidual, 3),
+      formatNumber(row.pAdjusted, 3),
+    ]),
+  );
+
+  text.heading('Method');
+  text.paragraph(result.report.methods, { size: 9.5 });
+  text.heading('Result');
+  text.paragraph(result.report.results, { size: 9.5 });
+  if (source.notes?.trim()) {
+    text.heading('Notes');
+    text.paragraph(source.notes.trim(), { size: 9.5 });
+  }
+  if (result.warnings.length) {
+    text.heading('Warnings from the engine');
+    for (const warning of result.warnings) text.paragraph(`•  ${warning.message}`, { size: 9.5 }, { indent: 8 });
+  }
+  text.heading('What this does not show');
+  for (const caution of result.report.cautions) {
+    text.paragraph(`•  ${caution}`, { size: 9.5 }, { indent: 8 });
+    doc.moveDown(0.2);
+  }
+}
