@@ -191,6 +191,8 @@ const SORT_COLUMNS: Record<string, string> = {
   status: 'analyses.status',
 };
 
+const NULLABLE_SORTS = new Set(['study', 'p']);
+
 /** The history: one page of the analyses the caller may read, sorted and filtered. */
 export async function listAnalyses(db: Knex, caller: User, query: ListAnalysesFilters): Promise<Page<AnalysisSummary>> {
   const filtered = selectAnalyses(db)
@@ -217,10 +219,14 @@ export async function listAnalyses(db: Knex, caller: User, query: ListAnalysesFi
   const rows: AnalysisRow[] = await filtered
     .clone()
     .select(SUMMARY_COLUMNS)
-    .orderBy([
-      { column: SORT_COLUMNS[query.sort], order: query.order, nulls: 'last' },
-      { column: 'analyses.id', order: query.order },
-    ])
+    .modify((builder) => {
+      const column = SORT_COLUMNS[query.sort];
+      // Rows without a study or a p-value go last either way. (Written out because knex drops the
+      // column when asked for nulls-last on SQLite.) Date, author and status are never null, which
+      // keeps the default sort free to walk the created_at index.
+      if (NULLABLE_SORTS.has(query.sort)) builder.orderByRaw('(?? is null)', [column]);
+      builder.orderBy(column, query.order).orderBy('analyses.id', query.order);
+    })
     .limit(query.pageSize)
     .offset((query.page - 1) * query.pageSize);
   return { items: rows.map(toSummary), total: Number(total), page: query.page, pageSize: query.pageSize };
