@@ -222,11 +222,13 @@ export function analyze(input: AnalysisSpec, options: AnalyzeOptions = {}): Anal
   const intervalLevel = spec.intervals?.level ?? DEFAULT_INTERVAL_LEVEL;
   const intervals = shareIntervals(counts, intervalMethod, intervalLevel);
 
+  const positionInActive = new Array<number>(k).fill(-1);
+  active.forEach((index, position) => (positionInActive[index] = position));
   const categories: CategoryRow[] = labels.map((label, index) => {
     const observed = counts[index];
     const e = expected[index];
     const share = shares[index];
-    const position = active.indexOf(index);
+    const position = positionInActive[index];
     return {
       label,
       observed,

@@ -6,7 +6,8 @@
  *
  * Only the two tails are summed, each from its boundary outward (terms shrink monotonically
  * there because the binomial distribution is unimodal), stopping once a term no longer changes
- * the sum; the far boundary is found by bisection. Work is O(√(np(1 − p)) + log n) per call.
+ * the sum; the far boundary is found by a short walk from its mirror image about the mode.
+ * Work is O(√(np(1 − p)) + log n) per call.
  * The sums are carried relative to the boundary term so ln p stays finite when p underflows.
  */
 import { binomialLogProbability } from './binomial-log-probability';
@@ -47,16 +48,47 @@ function logTailSum(start: number, direction: 1 | -1, n: number, p: number): num
 
 /**
  * The first j in [from, to] (moving away from the mode) with ln P(j) <= threshold, assuming
- * ln P decreases along that direction; returns undefined when there is none.
+ * ln P decreases along that direction; returns undefined when there is none. Starts from a guess
+ * (the mirror image of the observed count about the mode, where the answer lies for a symmetric
+ * distribution) and walks from there with the ratio recurrence; falls back to bisection when the
+ * walk gets long, so the cost stays O(log n).
  */
-function firstAtOrBelow(threshold: number, from: number, to: number, n: number, p: number): number | undefined {
-  const ascending = to >= from;
+function firstAtOrBelow(
+  threshold: number,
+  from: number,
+  to: number,
+  guess: number,
+  n: number,
+  p: number,
+): number | undefined {
+  const step = to >= from ? 1 : -1;
   if (binomialLogProbability(to, n, p) > threshold) return undefined;
-  let inside = from; // ln P(inside) may be > threshold
-  let outside = to; // ln P(outside) <= threshold
+  const clamp = (j: number) => (step === 1 ? Math.min(to, Math.max(from, j)) : Math.max(to, Math.min(from, j)));
+  const logOdds = Math.log(p) - Math.log1p(-p);
+  // ln P(j + step) − ln P(j)
+  const logRatio = (j: number) => (step === 1 ? Math.log((n - j) / (j + 1)) + logOdds : Math.log(j / (n - j + 1)) - logOdds);
+  let j = clamp(guess);
+  let logP = binomialLogProbability(j, n, p);
+  const WALK_LIMIT = 64;
+  for (let walked = 0; walked < WALK_LIMIT; walked++) {
+    if (logP > threshold) {
+      if (j === to) return undefined;
+      logP += logRatio(j);
+      j += step;
+    } else {
+      if (j === from) return j;
+      const previous = logP - logRatio(j - step);
+      if (previous > threshold) return j;
+      logP = previous;
+      j -= step;
+    }
+  }
+  // Bisection on [inside, outside] between the first value above and the first at or below.
+  let inside = logP > threshold ? j : from;
+  let outside = logP > threshold ? to : j;
   if (binomialLogProbability(inside, n, p) <= threshold) return inside;
   while (Math.abs(outside - inside) > 1) {
-    const middle = ascending ? Math.floor((inside + outside) / 2) : Math.ceil((inside + outside) / 2);
+    const middle = step === 1 ? Math.floor((inside + outside) / 2) : Math.ceil((inside + outside) / 2);
     if (binomialLogProbability(middle, n, p) <= threshold) outside = middle;
     else inside = middle;
   }
@@ -80,11 +112,11 @@ export function binomialTest(x: number, n: number, p: number): BinomialTestResul
   if (threshold >= binomialLogProbability(mode, n, p)) {
     logP = 0; // the observed outcome is (tied with) the most probable one
   } else if (x < mode) {
-    const upperStart = mode < n ? firstAtOrBelow(threshold, mode + 1, n, n, p) : undefined;
+    const upperStart = mode < n ? firstAtOrBelow(threshold, mode + 1, n, 2 * mode - x, n, p) : undefined;
     logP = logTailSum(x, -1, n, p);
     if (upperStart !== undefined) logP = logAddExp(logP, logTailSum(upperStart, 1, n, p));
   } else {
-    const lowerStart = mode > 0 ? firstAtOrBelow(threshold, mode - 1, 0, n, p) : undefined;
+    const lowerStart = mode > 0 ? firstAtOrBelow(threshold, mode - 1, 0, 2 * mode - x, n, p) : undefined;
     logP = logTailSum(x, 1, n, p);
     if (lowerStart !== undefined) logP = logAddExp(logP, logTailSum(lowerStart, -1, n, p));
   }

@@ -23,18 +23,25 @@ export interface NoncentralTails {
 /** Range of Poisson(μ) indices outside which the left-out mass is below TAIL_MASS_LEFT_OUT. */
 function poissonSpan(mu: number): { first: number; last: number } {
   const mode = Math.floor(mu);
+  const modeWeight = Math.exp(logPoissonDensity(mode, mu));
+  // Walk down: w_{j−1} = w_j j / μ. The left-out mass below `first` is at most
+  // w_{first−1} / (1 − (first − 1)/μ), the ratios falling geometrically.
   let first = mode;
+  let weight = modeWeight;
   while (first > 0) {
-    const weight = Math.exp(logPoissonDensity(first - 1, mu));
-    // Σ_{j < first} w_j <= w_{first−1} / (1 − (first − 1)/μ), the ratio w_{j−1}/w_j = j/μ falling.
-    if (weight / (1 - (first - 1) / mu) < TAIL_MASS_LEFT_OUT) break;
+    const below = (weight * first) / mu;
+    if (below / (1 - (first - 1) / mu) < TAIL_MASS_LEFT_OUT) break;
+    weight = below;
     first--;
   }
+  // Walk up: w_{j+1} = w_j μ / (j + 1), bounded likewise once the ratio is below 1.
   let last = mode;
+  weight = modeWeight;
   for (;;) {
-    const weight = Math.exp(logPoissonDensity(last + 1, mu));
+    const above = (weight * mu) / (last + 1);
     const ratio = mu / (last + 2);
-    if (ratio < 1 && weight / (1 - ratio) < TAIL_MASS_LEFT_OUT) break;
+    if (ratio < 1 && above / (1 - ratio) < TAIL_MASS_LEFT_OUT) break;
+    weight = above;
     last++;
   }
   return { first, last };
@@ -61,20 +68,34 @@ export function noncentralChiSquareTails(x: number, df: number, noncentrality: n
   const a = df / 2;
   const y = x / 2;
   const { first, last } = poissonSpan(mu);
-  const gammaStep = (j: number) => Math.exp(logPoissonDensity(a + j, y)); // y^{a+j} e^{−y} / Γ(a + j + 1)
-  const weight = (j: number) => Math.exp(logPoissonDensity(j, mu));
+  // Terms advance by their ratios — weight_{j+1} = weight_j μ/(j + 1) and
+  // step_{j+1} = step_j y/(a + j + 1) — and are recomputed directly whenever they are so small
+  // that the ratio recurrence could have lost them to underflow.
+  const REANCHOR_BELOW = 1e-250;
+  const directWeight = (j: number) => Math.exp(logPoissonDensity(j, mu));
+  const directStep = (j: number) => Math.exp(logPoissonDensity(a + j, y)); // y^{a+j} e^{−y} / Γ(a + j + 1)
 
   let upper = 0;
   let q = regularizedGammaTails(a + first, y).upper;
+  let weight = directWeight(first);
+  let step = directStep(first);
   for (let j = first; j <= last; j++) {
-    upper += weight(j) * q;
-    q += gammaStep(j);
+    upper += weight * q;
+    q += step;
+    weight = weight < REANCHOR_BELOW ? directWeight(j + 1) : (weight * mu) / (j + 1);
+    step = step < REANCHOR_BELOW ? directStep(j + 1) : (step * y) / (a + j + 1);
   }
   let lower = 0;
   let p = regularizedGammaTails(a + last, y).lower;
+  weight = directWeight(last);
+  step = last > first ? directStep(last - 1) : 0;
   for (let j = last; j >= first; j--) {
-    lower += weight(j) * p;
-    if (j > first) p += gammaStep(j - 1);
+    lower += weight * p;
+    if (j === first) break;
+    p += step; // P(a + j − 1, y) = P(a + j, y) + y^{a+j−1} e^{−y} / Γ(a + j)
+    weight = weight < REANCHOR_BELOW ? directWeight(j - 1) : (weight * j) / mu;
+    if (j - 2 < first) step = 0;
+    else step = step < REANCHOR_BELOW ? directStep(j - 2) : (step * (a + j - 1)) / y;
   }
   // Each sum is accurate relative to its own size; the larger tail is best taken as the
   // complement of the smaller, which removes the rounding of a long sum of weights near 1.

@@ -4,20 +4,26 @@
  * decimals without a leading zero, `p < .001` below that; thousands separated by commas.
  */
 
+/** Insert commas every three digits into a string of digits with an optional sign and decimals. */
+function groupText(text: string): string {
+  if (text.includes('e')) return text; // exponent notation (|value| >= 1e21) stays as it is
+  const point = text.indexOf('.');
+  const end = point < 0 ? text.length : point;
+  const start = text.startsWith('-') ? 1 : 0;
+  if (end - start <= 3) return text;
+  let grouped = text.slice(start, start + ((end - start) % 3 || 3));
+  for (let i = start + ((end - start) % 3 || 3); i < end; i += 3) grouped += `,${text.slice(i, i + 3)}`;
+  return `${text.slice(0, start)}${grouped}${text.slice(end)}`;
+}
+
 /** 1234567 → "1,234,567"; keeps any decimals. */
 export function groupDigits(value: number): string {
-  const [whole, fraction] = String(value).split('.');
-  const sign = whole.startsWith('-') ? '-' : '';
-  const digits = sign ? whole.slice(1) : whole;
-  const grouped = digits.replace(/\B(?=(\d{3})+(?!\d))/g, ',');
-  return fraction === undefined ? `${sign}${grouped}` : `${sign}${grouped}.${fraction}`;
+  return groupText(String(value));
 }
 
 /** Two decimals, e.g. 5.6071 → "5.61"; large values grouped: 12345.678 → "12,345.68". */
 export function formatStatistic(value: number): string {
-  const fixed = value.toFixed(2);
-  const [whole, fraction] = fixed.split('.');
-  return `${groupDigits(Number(whole))}.${fraction}`;
+  return groupText(value.toFixed(2));
 }
 
 /** A p-value on its own: ".018", "< .001", "> .999". */
