@@ -6,6 +6,8 @@ import * as createAuditEvents from './20261202-0004-create-audit-events';
 import * as extendAnalyses from './20261202-0005-extend-analyses';
 import * as createReviewsAndComments from './20261202-0006-create-reviews-and-comments';
 import * as createApiAndRefreshTokens from './20261202-0007-create-api-and-refresh-tokens';
+import * as createDatasets from './20261202-0020-create-datasets';
+import * as createShares from './20261202-0021-create-shares';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -24,6 +26,8 @@ const migrations: ReadonlyArray<readonly [name: string, migration: Migration]> =
   ['20261202-0005-extend-analyses', extendAnalyses],
   ['20261202-0006-create-reviews-and-comments', createReviewsAndComments],
   ['20261202-0007-create-api-and-refresh-tokens', createApiAndRefreshTokens],
+  ['20261202-0020-create-datasets', createDatasets],
+  ['20261202-0021-create-shares', createShares],
 ];
 
 export const migrationSource: Knex.MigrationSource<Migration> = {

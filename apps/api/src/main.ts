@@ -6,6 +6,7 @@ import { migrateToLatest, openDatabase } from './app/database';
 import { seedDemo } from './app/demo/demo-seed';
 import { join } from 'node:path';
 import { createEnginePool } from './app/engine/engine-pool';
+import { startMailService } from './app/mail/mail-service';
 
 async function main(): Promise<void> {
   const config = loadConfig(process.env);
@@ -15,7 +16,9 @@ async function main(): Promise<void> {
   const signIns = config.seedDemo ? await seedDemo(db, config.dataDir, config.demoPassword) : [];
   // The worker is built beside main.js (see additionalEntryPoints in apps/api/project.json).
   const engine = createEnginePool({ workerFile: join(__dirname, 'engine-worker.js'), timeLimitMs: config.engineTimeLimitMs });
-  const { app } = createApp({ config, db, engine, logger });
+  // Without SMTP_URL a local SMTP stand-in receives the mail; admins read it in the outbox.
+  const mail = await startMailService({ smtpUrl: config.smtpUrl, from: config.mailFrom });
+  const { app } = createApp({ config, db, engine, mail, logger });
 
   const server = app.listen(config.port, config.host, () => {
     const address = server.address();
@@ -24,6 +27,7 @@ async function main(): Promise<void> {
     const lines = [
       '',
       `Tallyfit is running at ${url}  (engine ${ENGINE_VERSION}, data in ${config.dataDir})`,
+      `Mail goes to ${mail.destination}.`,
       config.consoleDir ? '' : 'The console is not built; only the API is served (run `npx nx build console`).',
       ...(signIns.length ? ['Demo sign-ins (local only):', ...signIns.map((s) => `  ${s.role.padEnd(8)} ${s.email}  ${s.password}`)] : []),
       '',
@@ -32,7 +36,7 @@ async function main(): Promise<void> {
   });
 
   const shutdown = () => {
-    server.close(() => void Promise.all([engine.close(), db.destroy()]).then(() => process.exit(0)));
+    server.close(() => void Promise.all([engine.close(), mail.stop(), db.destroy()]).then(() => process.exit(0)));
   };
   process.on('SIGINT', shutdown);
   process.on('SIGTERM', shutdown);

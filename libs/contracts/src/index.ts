@@ -11,3 +11,4 @@ export * from './lib/studies';
 export * from './lib/audit';
 export * from './lib/reviews';
 export * from './lib/datasets';
+export * from './lib/shares';

@@ -16,6 +16,16 @@ export interface Config {
   loginAttemptsPer15Minutes: number;
   /** Longest one engine run may take before it is stopped. */
   engineTimeLimitMs: number;
+  /** Largest dataset file accepted, in bytes. */
+  uploadLimitBytes: number;
+  /** The mail server (smtp:// or smtps:// URL); absent: the API starts its local SMTP stand-in. */
+  smtpUrl?: string;
+  /** The sender of shared reports. */
+  mailFrom: string;
+  /** The address people open Tallyfit at, for links in e-mails. */
+  publicUrl: string;
+  /** The shipped fonts (fonts/ in the repository), for PDF reports. */
+  fontsDir: string;
   /** The built console to serve beside the API, if it exists. */
   consoleDir?: string;
   /** Origin the console is served from when it is not served by the API itself (CORS). */
@@ -45,6 +55,11 @@ export function loadConfig(env: Env, cwd = process.cwd()): Config {
     refreshTokenTtlSeconds: integer(env, 'REFRESH_TOKEN_TTL_SECONDS', 14 * 86_400, 60, 365 * 86_400),
     loginAttemptsPer15Minutes: integer(env, 'LOGIN_ATTEMPTS_PER_15_MINUTES', 10, 1, 10_000),
     engineTimeLimitMs: integer(env, 'ENGINE_TIME_LIMIT_SECONDS', 30, 1, 3600) * 1000,
+    uploadLimitBytes: integer(env, 'UPLOAD_LIMIT_MB', 2048, 1, 100_000) * 1024 * 1024,
+    smtpUrl: env['SMTP_URL'] || undefined,
+    mailFrom: env['MAIL_FROM'] || 'Tallyfit <tallyfit@localhost>',
+    publicUrl: (env['PUBLIC_URL'] || `http://localhost:${integer(env, 'PORT', 3000, 0, 65535)}`).replace(/\/+$/, ''),
+    fontsDir: absolute(env['TALLYFIT_FONTS_DIR'] ?? 'fonts', cwd),
     consoleDir: existsSync(join(consoleDir, 'index.html')) ? consoleDir : undefined,
     consoleOrigin: env['CONSOLE_ORIGIN'] || undefined,
     seedDemo: flag(env, 'TALLYFIT_DEMO_SEED', true),

@@ -12,8 +12,12 @@ import type { Config } from './config';
 import { serveConsole } from './console/console-static';
 import type { EngineRunner } from './engine/engine-runner';
 import { engineRoutes } from './engine/engine.routes';
+import { datasetsRoutes } from './datasets/datasets.routes';
 import { healthRoutes } from './health/health.routes';
+import type { MailService } from './mail/mail-service';
 import { peopleRoutes } from './people/people.routes';
+import { reportsRoutes } from './reports/reports.routes';
+import { sharesRoutes } from './shares/shares.routes';
 import { apiTokensRoutes } from './tokens/api-tokens.routes';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { reviewsRoutes } from './reviews/reviews.routes';
@@ -25,6 +29,8 @@ export interface AppContext {
   db: Knex;
   /** Where engine runs happen: the worker pool on a server; in-process only when a test asks for it. */
   engine: EngineRunner;
+  /** Mail delivery: the configured SMTP server or the local stand-in, started before the app. */
+  mail: MailService;
   logger?: Logger;
 }
 
@@ -35,7 +41,7 @@ export interface TallyfitApp {
 }
 
 /** Every resource's routes. A new resource is added here and nowhere else. */
-function allRoutes({ config, db, engine }: AppContext): RouteDefinition[] {
+function allRoutes({ config, db, engine, mail }: AppContext): RouteDefinition[] {
   return [
     ...healthRoutes(db),
     ...authRoutes(db, config),
@@ -46,6 +52,9 @@ function allRoutes({ config, db, engine }: AppContext): RouteDefinition[] {
     ...engineRoutes(engine),
     ...studiesRoutes(db),
     ...auditRoutes(db),
+    ...datasetsRoutes(db, config, engine),
+    ...reportsRoutes(db, config),
+    ...sharesRoutes(db, config, mail),
   ];
 }
 

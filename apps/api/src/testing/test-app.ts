@@ -10,6 +10,7 @@ import { createApp, type TallyfitApp } from '../app/create-app';
 import { migrateToLatest, openDatabase } from '../app/database';
 import { createUser } from '../app/auth/users.service';
 import { inProcessEngine, type EngineRunner } from '../app/engine/engine-runner';
+import { startMailService, type MailService } from '../app/mail/mail-service';
 
 export const TEST_PASSWORD = 'correct horse battery staple';
 
@@ -18,6 +19,8 @@ export interface TestContext extends TallyfitApp {
   db: Knex;
   /** A bearer token per role, for a person created for this suite. */
   tokens: Record<Role, string>;
+  /** Mail delivery: the local SMTP stand-in unless SMTP_URL was given in `env`. */
+  mail: MailService;
   /** The id of the person behind each role's token. */
   userIds: Record<Role, number>;
   /** supertest calls signed in as a role (or with any bearer token). */
@@ -63,12 +66,14 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestC
     TALLYFIT_DATA_DIR: dataDir,
     JWT_SECRET: 'test-secret',
     TALLYFIT_CONSOLE_DIR: join(dataDir, 'none'),
+    TALLYFIT_FONTS_DIR: join(__dirname, '../../../../fonts'),
     ...options.env,
   });
   const db = openDatabase(config);
   await migrateToLatest(db);
   const engine = options.engine ?? inProcessEngine();
-  const app = createApp({ config, db, engine, logger: pino({ level: 'silent' }) });
+  const mail = await startMailService({ smtpUrl: config.smtpUrl, from: config.mailFrom, timeoutMs: 5000 });
+  const app = createApp({ config, db, engine, mail, logger: pino({ level: 'silent' }) });
   const roles: Role[] = ['admin', 'lead', 'analyst', 'viewer'];
   const tokens = {} as Record<Role, string>;
   const userIds = {} as Record<Role, number>;
@@ -83,6 +88,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestC
     config,
     db,
     tokens,
+    mail,
     userIds,
     as: (roleOrToken) => {
       const bearer = `Bearer ${(tokens as Record<string, string>)[roleOrToken] ?? roleOrToken}`;
@@ -97,6 +103,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestC
     },
     close: async () => {
       await engine.close();
+      await mail.stop();
       await db.destroy();
       rmSync(dataDir, { recursive: true, force: true });
     },

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { analysisSpecBaseSchema } from '@tallyfit/engine';
 
 const columnName = (what: string) =>
   z.string().trim().min(1, { message: `${what} must name a column` }).max(200, { message: `${what} is too long` });
@@ -71,3 +72,15 @@ export const datasetUploadFieldsSchema = z.union([countSelectionSchema, z.object
 /** Limits the upload and its summaries keep to (the API states them; the console shows them). */
 export const DATASET_PREVIEW_ROWS = 20;
 export const DATASET_MAX_CATEGORIES = 1000;
+
+/**
+ * An analysis of a dataset's counts: the selection says which column(s) hold them, `spec` is the
+ * engine's spec without `observed` (the stored counts fill it in).
+ */
+export const datasetAnalysisRequestSchema = z.object({
+  title: z.string().trim().min(1, { message: 'title must not be empty' }).max(200, { message: 'title must be at most 200 characters' }),
+  notes: z.string().max(10_000, { message: 'notes must be at most 10000 characters' }).optional(),
+  selection: countSelectionSchema,
+  spec: analysisSpecBaseSchema.omit({ observed: true }),
+});
+export type DatasetAnalysisRequest = z.infer<typeof datasetAnalysisRequestSchema>;

@@ -4,6 +4,7 @@ import type { AnalysisResult } from '@tallyfit/engine';
 export interface ReportSource {
   id: number;
   title: string;
+  studyId: number | null;
   studyName: string | null;
   datasetName: string | null;
   authorName: string;

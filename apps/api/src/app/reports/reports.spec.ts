@@ -20,6 +20,7 @@ const result = analyze({
 const source: ReportSource = {
   id: 7,
   title: 'Checkout split, week 48',
+  studyId: 3,
   studyName: 'Checkout redesign',
   datasetName: 'assignments.csv',
   authorName: 'Ana Analyst',
