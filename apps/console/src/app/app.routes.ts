@@ -24,6 +24,11 @@ export const appRoutes: Routes = [
         loadComponent: () => import('./pages/study/study-page').then((m) => m.StudyPage),
       },
       {
+        path: 'history',
+        title: 'History · Tallyfit',
+        loadComponent: () => import('./pages/history/history-page').then((m) => m.HistoryPage),
+      },
+      {
         path: 'analyses',
         title: 'My analyses · Tallyfit',
         loadComponent: () => import('./pages/analyses/analyses-page').then((m) => m.AnalysesPage),

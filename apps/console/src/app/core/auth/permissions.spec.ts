@@ -10,9 +10,11 @@ describe('can', () => {
   });
 
   it('gives a viewer nothing that changes data', () => {
-    const changes = ['createStudy', 'archiveStudy', 'manageMembers', 'runAnalysis', 'review', 'comment', 'administer'] as const;
+    const changes = ['createStudy', 'archiveStudy', 'manageMembers', 'runAnalysis', 'review', 'administer'] as const;
     expect(changes.filter((permission) => can('viewer', permission))).toEqual([]);
   });
+
+  it('lets every role that reads an analysis comment on it', () => expect(can('viewer', 'comment')).toBe(true));
 
   it('gives nobody signed out anything', () => expect(can(null, 'comment')).toBe(false));
 });

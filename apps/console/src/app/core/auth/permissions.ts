@@ -10,7 +10,8 @@ const PERMISSIONS = {
   manageMembers: ['admin', 'lead'],
   runAnalysis: ['admin', 'analyst'],
   review: ['admin', 'lead'],
-  comment: ['admin', 'lead', 'analyst'],
+  // Anyone who can read an analysis may comment on it (the API's rule).
+  comment: ['admin', 'lead', 'analyst', 'viewer'],
   readAudit: ['admin', 'lead'],
   administer: ['admin'],
 } as const satisfies Record<string, readonly Role[]>;

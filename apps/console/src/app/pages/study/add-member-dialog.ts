@@ -42,11 +42,11 @@ export class AddMemberDialog {
     studyRole: this.fromNull<StudyRole>('contributor'),
   });
 
-  private readonly people = toSignal(toLoadState(inject(PeopleApi).list()), { initialValue: LOADING });
+  private readonly people = toSignal(toLoadState(inject(PeopleApi).directory()), { initialValue: LOADING });
   protected readonly candidates = computed(() => {
     const state = this.people();
     if (state.status !== 'loaded') return [];
-    return state.value.filter((person) => !person.disabled && !this.data.memberIds.includes(person.id));
+    return state.value.filter((person) => !this.data.memberIds.includes(person.id));
   });
   protected readonly loadFailure = computed(() => {
     const state = this.people();
