@@ -14,6 +14,7 @@ import type { EngineRunner } from './engine/engine-runner';
 import { engineRoutes } from './engine/engine.routes';
 import { datasetsRoutes } from './datasets/datasets.routes';
 import { healthRoutes } from './health/health.routes';
+import { openApiRoutes } from './openapi/openapi.routes';
 import type { MailService } from './mail/mail-service';
 import { peopleRoutes } from './people/people.routes';
 import { reportsRoutes } from './reports/reports.routes';
@@ -42,7 +43,7 @@ export interface TallyfitApp {
 
 /** Every resource's routes. A new resource is added here and nowhere else. */
 function allRoutes({ config, db, engine, mail }: AppContext): RouteDefinition[] {
-  return [
+  const routes: RouteDefinition[] = [
     ...healthRoutes(db),
     ...authRoutes(db, config),
     ...peopleRoutes(db),
@@ -56,6 +57,8 @@ function allRoutes({ config, db, engine, mail }: AppContext): RouteDefinition[] 
     ...reportsRoutes(db, config),
     ...sharesRoutes(db, config, mail),
   ];
+  routes.push(...openApiRoutes(() => routes));
+  return routes;
 }
 
 /**

@@ -18,6 +18,8 @@ export type HttpMethod = 'get' | 'post' | 'put' | 'patch' | 'delete';
 /** The zod schemas of a route's input, for the OpenAPI document (handlers still parse with parseInput). */
 export interface RouteRequestSchemas {
   body?: z.ZodType;
+  /** Defaults to application/json (an upload route says multipart/form-data). */
+  bodyContentType?: string;
   query?: z.ZodType;
   params?: z.ZodType;
 }
