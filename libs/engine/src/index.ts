@@ -46,6 +46,7 @@ export {
 } from './lib/distributions/noncentral-chi-square';
 export { power, sampleSize, type PowerInput, type PowerResult, type SampleSizeInput, type SampleSizeResult } from './lib/planning/power';
 export { binomialTest, type BinomialTestResult } from './lib/binomial/binomial-test';
+export { mergeCategories, type MergeOutcome } from './lib/merge/merge-categories';
 export {
   exactMultinomialTest,
   type ExactOrdering,

@@ -3,11 +3,8 @@
  * the caller supplies the arguments, the input streams and the output functions, and gets the
  * exit code back (0 success, 2 bad arguments or input, 1 unexpected failure).
  */
-import { analyze } from '../lib/analyze';
-import { chiSquareCriticalValue, chiSquareTails } from '../lib/distributions/chi-square';
-import { ENGINE_VERSION } from '../lib/engine-version';
-import { power, sampleSize } from '../lib/planning/power';
-import { EngineInputError } from '../lib/spec/engine-input-error';
+// Only the public entry point: the published cli.js imports it from index.js, sharing one copy.
+import { analyze, chiSquareCriticalValue, chiSquareTails, ENGINE_VERSION, EngineInputError, power, sampleSize } from '../index';
 import { CliUsageError, parseNumericFlags, requireFlag } from './parse-flags';
 
 export interface CliIo {

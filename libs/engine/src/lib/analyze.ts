@@ -9,7 +9,7 @@ import { binomialTest } from './binomial/binomial-test';
 import { cohensWInterval } from './effect-size/cohens-w-interval';
 import { cohensW, effectSizeWord } from './effect-size/cohens-w';
 import { ENGINE_VERSION } from './engine-version';
-import { exactMultinomialTest } from './exact';
+import { DEFAULT_MONTE_CARLO_SEED, exactMultinomialTest } from './exact';
 import { resolveHypothesis } from './hypothesis/resolve-hypothesis';
 import { shareIntervals } from './intervals/share-intervals';
 import { adjustPValues } from './posthoc/adjust-p-values';
@@ -69,7 +69,7 @@ function runExactTest(
   const result: ExactTestResult = { ordering: outcome.ordering, method: outcome.method, p: outcome.p, logP: outcome.logP };
   if (outcome.se !== undefined) result.se = outcome.se;
   if (outcome.samples !== undefined) result.samples = outcome.samples;
-  if (outcome.method === 'monte-carlo') result.seed = spec.exact?.seed ?? 0;
+  if (outcome.method === 'monte-carlo') result.seed = spec.exact?.seed ?? DEFAULT_MONTE_CARLO_SEED;
   if (outcome.outcomesVisited !== undefined) result.outcomesVisited = outcome.outcomesVisited;
   if (outcome.massBound !== undefined) result.massBound = outcome.massBound;
   const warnings: EngineWarning[] = [];
