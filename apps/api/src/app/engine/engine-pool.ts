@@ -40,7 +40,7 @@ export function createEnginePool(options: EnginePoolOptions): EngineRunner {
           throw new HttpError(
             422,
             'too_much_work',
-            `the analysis did not finish within ${Math.round(options.timeLimitMs / 1000)} s; ask the exact test for Monte Carlo (exact.method "monte-carlo") or fewer samples`,
+            `the analysis did not finish within ${options.timeLimitMs / 1000} s; ask the exact test for Monte Carlo (exact.method "monte-carlo") or fewer samples`,
           );
         }
         if (error instanceof Error && /queue is full/i.test(error.message)) {

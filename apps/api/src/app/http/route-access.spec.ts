@@ -64,7 +64,8 @@ describe('who may call which route', () => {
         expect({ name, caller: `${role} API token`, status: viaToken }).toEqual({ name, caller: `${role} API token`, status: expected });
       }
     }
-  });
+    // Ten calls per route; a generous limit because the machine is shared, not a speed target.
+  }, 120_000);
 
   it('answers 401 for a garbled token', async () => {
     const route = ctx.routes.find((candidate) => candidate.access.kind !== 'public')!;

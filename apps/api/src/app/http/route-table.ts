@@ -1,7 +1,7 @@
 import type { Express, NextFunction, Request, RequestHandler, Response } from 'express';
 import type { z } from 'zod';
 import type { Role } from '@tallyfit/contracts';
-import { forbidden, unauthorized } from './http-error';
+import { forbidden, HttpError, unauthorized } from './http-error';
 
 /**
  * Who may call a route. Deny by default: a route cannot be mounted without saying this,
@@ -60,9 +60,22 @@ export const fullPath = (route: Pick<RouteDefinition, 'path' | 'basePath'>): str
 export function mountRoutes(app: Express, routes: readonly RouteDefinition[], authenticate: RequestHandler): void {
   for (const route of routes) {
     const guards: RequestHandler[] = route.access.kind === 'public' ? [] : [authenticate, requireRole(route.access.roles)];
-    app[route.method](fullPath(route), ...guards, ...(route.before ?? []), wrap(route.handler));
+    const bodyCheck = route.method === 'get' || route.method === 'delete' ? [] : [requireJsonOrUpload];
+    app[route.method](fullPath(route), ...guards, ...bodyCheck, ...(route.before ?? []), wrap(route.handler));
   }
 }
+
+/**
+ * A body that is neither JSON nor an upload (multipart, checked by the upload routes themselves)
+ * gets a 415 rather than a confusing "field is required".
+ */
+const requireJsonOrUpload: RequestHandler = (req, _res, next) => {
+  const hasBody = Number(req.headers['content-length'] ?? 0) > 0 || req.headers['transfer-encoding'] !== undefined;
+  if (hasBody && !req.is(['application/json', 'multipart/form-data'])) {
+    return next(new HttpError(415, 'unsupported_media_type', 'send the request body as JSON (Content-Type: application/json)'));
+  }
+  next();
+};
 
 function requireRole(roles: readonly Role[]): RequestHandler {
   return (req, _res, next) => {
