@@ -24,20 +24,23 @@ function bucketRange(lists: HalfLists, total: number): [number, number] {
   return [lists.offsets[index], lists.offsets[index + 1]];
 }
 
-/** Largest log-weight per bucket, and the weights as exp(logWeight − that) (all in (0, 1]). */
-function scaledWeights(lists: HalfLists): { scale: Float64Array; weight: Float64Array } {
+/**
+ * Turns each bucket's log-weights into weights exp(logWeight − bucket maximum), all in (0, 1],
+ * overwriting the log-weights to save memory; returns the maxima.
+ */
+function scaleWeightsInPlace(lists: HalfLists): Float64Array {
   const buckets = lists.offsets.length - 1;
   const scale = new Float64Array(buckets);
-  const weight = new Float64Array(lists.logWeight.length);
+  const values = lists.logWeight;
   for (let i = 0; i < buckets; i++) {
     const from = lists.offsets[i];
     const to = lists.offsets[i + 1];
     let max = -Infinity;
-    for (let e = from; e < to; e++) if (lists.logWeight[e] > max) max = lists.logWeight[e];
+    for (let e = from; e < to; e++) if (values[e] > max) max = values[e];
     scale[i] = max;
-    for (let e = from; e < to; e++) weight[e] = Math.exp(lists.logWeight[e] - max);
+    for (let e = from; e < to; e++) values[e] = Math.exp(values[e] - max);
   }
-  return { scale, weight };
+  return scale;
 }
 
 export interface JoinProgress {
@@ -46,7 +49,8 @@ export interface JoinProgress {
 
 /**
  * Total probability of the outcomes with S(a) + S(b) < threshold ("less extreme than observed").
- * Both lists must hold every half vector that occurs in such an outcome. Needs no sorting: each
+ * Both lists must hold every half vector that occurs in such an outcome; their log-weights are
+ * overwritten (by scaled weights) to save memory. Needs no sorting: each
  * b bucket is binned by statistic (binned-bucket.ts) and each a asks it for the mass below
  * threshold − S(a).
  * `second` may be the same object as `first` when the halves mirror each other.
@@ -59,23 +63,23 @@ export function massBelowThreshold(
   logOffset: number,
   onProgress?: JoinProgress,
 ): number {
-  const a = scaledWeights(first);
-  const b = second === first ? a : scaledWeights(second);
+  const aScale = scaleWeightsInPlace(first);
+  const bScale = second === first ? aScale : scaleWeightsInPlace(second);
   const total = new CompensatedSum();
   const bucket = new BinnedBucket();
   const buckets = first.offsets.length - 1;
   const aStat = first.stat;
-  const aWeight = a.weight;
+  const aWeight = first.logWeight;
   for (let i = 0; i < buckets; i++) {
     const t = first.tMin + i;
     const a0 = first.offsets[i];
     const a1 = first.offsets[i + 1];
     const [b0, b1] = bucketRange(second, n - t);
     if (a1 === a0 || b1 === b0) continue;
-    bucket.load(second.stat, b.weight, b0, b1);
+    bucket.load(second.stat, second.logWeight, b0, b1);
     let acc = 0;
     for (let e = a0; e < a1; e++) acc += aWeight[e] * bucket.massBelow(threshold - aStat[e]);
-    if (acc > 0) total.add(Math.exp(logOffset + a.scale[i] + b.scale[n - t - second.tMin]) * acc);
+    if (acc > 0) total.add(Math.exp(logOffset + aScale[i] + bScale[n - t - second.tMin]) * acc);
     if (onProgress && (i & 63) === 0) onProgress(i / buckets);
   }
   return total.value;
