@@ -1,4 +1,5 @@
 import type { Routes } from '@angular/router';
+import { roleGuard } from './core/auth/role.guard';
 import { signedInGuard } from './core/auth/signed-in.guard';
 
 export const appRoutes: Routes = [
@@ -27,6 +28,16 @@ export const appRoutes: Routes = [
         path: 'history',
         title: 'History · Tallyfit',
         loadComponent: () => import('./pages/history/history-page').then((m) => m.HistoryPage),
+      },
+      {
+        path: 'tokens',
+        title: 'API tokens · Tallyfit',
+        loadComponent: () => import('./pages/tokens/tokens-page').then((m) => m.TokensPage),
+      },
+      {
+        path: 'admin',
+        canMatch: [roleGuard('admin', 'lead')],
+        loadChildren: () => import('./pages/admin/admin.routes').then((m) => m.adminRoutes),
       },
       {
         path: 'analyses',

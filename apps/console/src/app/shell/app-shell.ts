@@ -1,14 +1,22 @@
-import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { BreakpointObserver } from '@angular/cdk/layout';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
+import { MatMenuModule } from '@angular/material/menu';
 import { MatToolbarModule } from '@angular/material/toolbar';
-import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { NavigationEnd, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { filter, map } from 'rxjs';
 import { AuthSession } from '../core/auth/auth-session';
+import { ADMIN_NAV, MAIN_NAV, visibleTo } from './nav-items';
 
-/** The frame around every signed-in page: the product's name, the main places, and who is signed in. */
+/** Below this width the places fold into a menu, so the toolbar stays one line on a phone. */
+const COMPACT_QUERY = '(max-width: 959.98px)';
+
+/** The frame around every signed-in page: the product's name, the places a role can use, and who is signed in. */
 @Component({
   selector: 'tf-app-shell',
-  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatToolbarModule, MatButtonModule, MatIconModule],
+  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatToolbarModule, MatButtonModule, MatIconModule, MatMenuModule],
   templateUrl: './app-shell.html',
   styleUrl: './app-shell.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -17,6 +25,22 @@ export class AppShell {
   private readonly session = inject(AuthSession);
   private readonly router = inject(Router);
   protected readonly user = this.session.user;
+  protected readonly mainNav = computed(() => visibleTo(MAIN_NAV, this.session.role()));
+  protected readonly adminNav = computed(() => visibleTo(ADMIN_NAV, this.session.role()));
+  protected readonly compact = toSignal(
+    inject(BreakpointObserver)
+      .observe(COMPACT_QUERY)
+      .pipe(map((state) => state.matches)),
+    { initialValue: false },
+  );
+  private readonly url = toSignal(
+    this.router.events.pipe(
+      filter((event) => event instanceof NavigationEnd),
+      map(() => this.router.url),
+    ),
+    { initialValue: this.router.url },
+  );
+  protected readonly inAdmin = computed(() => this.url().startsWith('/admin'));
 
   protected signOut(): void {
     this.session.signOut({ revoke: true });

@@ -1,0 +1,25 @@
+import type { Routes } from '@angular/router';
+import { roleGuard } from '../../core/auth/role.guard';
+
+/** The admin area, loaded only when an admin (or, for the audit trail, a lead) opens it. */
+export const adminRoutes: Routes = [
+  { path: '', pathMatch: 'full', redirectTo: 'people' },
+  {
+    path: 'people',
+    title: 'People · Tallyfit',
+    canMatch: [roleGuard('admin')],
+    loadComponent: () => import('./people/people-page').then((m) => m.PeoplePage),
+  },
+  {
+    path: 'audit',
+    title: 'Audit trail · Tallyfit',
+    canMatch: [roleGuard('admin', 'lead')],
+    loadComponent: () => import('./audit/audit-page').then((m) => m.AuditPage),
+  },
+  {
+    path: 'outbox',
+    title: 'Mail outbox · Tallyfit',
+    canMatch: [roleGuard('admin')],
+    loadComponent: () => import('./outbox/outbox-page').then((m) => m.OutboxPage),
+  },
+];

@@ -1,0 +1,20 @@
+import { ADMIN_NAV, MAIN_NAV, visibleTo } from './nav-items';
+
+const labels = (items: { label: string }[]) => items.map((item) => item.label);
+
+describe('navigation by role', () => {
+  it('offers a viewer only places to read', () => {
+    expect(labels(visibleTo(MAIN_NAV, 'viewer'))).toEqual(['Studies', 'History', 'My analyses']);
+    expect(visibleTo(ADMIN_NAV, 'viewer')).toEqual([]);
+  });
+
+  it('offers a lead the audit trail but not people or the outbox', () => {
+    expect(labels(visibleTo(ADMIN_NAV, 'lead'))).toEqual(['Audit trail']);
+    expect(labels(visibleTo(MAIN_NAV, 'lead'))).not.toContain('New analysis');
+  });
+
+  it('offers an admin everything', () => {
+    expect(labels(visibleTo(ADMIN_NAV, 'admin'))).toEqual(['People', 'Audit trail', 'Mail outbox']);
+    expect(labels(visibleTo(MAIN_NAV, 'admin'))).toContain('New analysis');
+  });
+});
