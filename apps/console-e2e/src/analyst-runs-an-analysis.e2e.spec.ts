@@ -46,13 +46,15 @@ describe('an analyst signs in, runs a test and finds it saved', () => {
   it('runs Pearson’s test on typed counts and shows the published values', async () => {
     await page.getByRole('link', { name: 'New analysis' }).first().click();
     await page.getByRole('heading', { name: 'New analysis' }).waitFor();
-    await page.getByLabel('Title').fill('Seedling colour against a 1:1 split');
     await page.getByRole('textbox', { name: 'Category 1', exact: true }).fill('green');
     await page.getByRole('textbox', { name: 'Category 2', exact: true }).fill('yellow');
     const counts = page.getByRole('spinbutton', { name: 'Observed count' });
     await counts.nth(0).fill('1752');
     await counts.nth(1).fill('1895');
     await screenshot(page, '03-new-analysis');
+    // The guided flow: counts → what was expected (equal shares by default) → tests and options → run.
+    for (let step = 0; step < 3; step++) await page.getByRole('button', { name: 'Next', exact: true }).filter({ visible: true }).click();
+    await page.getByLabel('Title').fill('Seedling colour against a 1:1 split');
     await page.getByRole('button', { name: 'Run the test' }).click();
 
     await page.getByRole('heading', { name: 'Seedling colour against a 1:1 split' }).waitFor();

@@ -1,15 +1,23 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
-import type { AnalysisRecord, AnalysisSummary, CreateAnalysisRequest, Page } from '@tallyfit/contracts';
+import type { AnalysisRecord, AnalysisSummary, CreateAnalysisRequest, Page, RerunAnalysisResponse } from '@tallyfit/contracts';
+import type { AnalysisSpec } from '@tallyfit/engine';
 import { map, type Observable } from 'rxjs';
+import { pageHandlesErrors } from '../notify/page-handles-errors';
 
 /** Analyses over the API: run and store one, list one's own, read one. */
 @Injectable({ providedIn: 'root' })
 export class AnalysesApi {
   private readonly http = inject(HttpClient);
 
+  /** Runs and stores an analysis; the run step shows a failure itself. */
   create(request: CreateAnalysisRequest): Observable<AnalysisRecord> {
-    return this.http.post<AnalysisRecord>('/api/v1/analyses', request);
+    return this.http.post<AnalysisRecord>('/api/v1/analyses', request, { context: pageHandlesErrors() });
+  }
+
+  /** Runs an analysis again as a new version (on today's engine), with its stored spec or a changed one. */
+  rerun(id: number, spec?: AnalysisSpec): Observable<RerunAnalysisResponse> {
+    return this.http.post<RerunAnalysisResponse>(`/api/v1/analyses/${id}/rerun`, spec ? { spec } : {}, { context: pageHandlesErrors() });
   }
 
   /** The newest page (up to 100) of the signed-in person's own analyses. */
@@ -20,6 +28,6 @@ export class AnalysesApi {
   }
 
   get(id: number): Observable<AnalysisRecord> {
-    return this.http.get<AnalysisRecord>(`/api/v1/analyses/${id}`);
+    return this.http.get<AnalysisRecord>(`/api/v1/analyses/${id}`, { context: pageHandlesErrors() });
   }
 }

@@ -1,6 +1,6 @@
 import { HttpClient, HttpEventType, type HttpEvent } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
-import type { CategoryCounts, CountSelection, DatasetRecord, DatasetSummary } from '@tallyfit/contracts';
+import type { AnalysisRecord, CategoryCounts, CountSelection, DatasetAnalysisRequest, DatasetRecord, DatasetSummary } from '@tallyfit/contracts';
 import { filter, map, type Observable } from 'rxjs';
 import { pageHandlesErrors } from '../notify/page-handles-errors';
 
@@ -9,7 +9,7 @@ export type UploadProgress = { state: 'sending'; fraction: number | null } | { s
 
 /**
  * Datasets over the API: upload a file into a study (with progress), read one, count its
- * categories by a chosen column or columns. The pages show these failures themselves.
+ * categories by a chosen column or columns, run an analysis on it. The pages show these failures themselves.
  */
 @Injectable({ providedIn: 'root' })
 export class DatasetsApi {
@@ -44,7 +44,13 @@ export class DatasetsApi {
     return this.http.get<DatasetSummary[]>(`/api/v1/studies/${studyId}/datasets`, { context: pageHandlesErrors() });
   }
 
+  /** Chooses the column(s) that hold the categories; the API keeps the choice and answers with the counts. */
   countCategories(id: number, selection: CountSelection): Observable<CategoryCounts> {
-    return this.http.post<CategoryCounts>(`/api/v1/datasets/${id}/counts`, selection, { context: pageHandlesErrors() });
+    return this.http.post<CategoryCounts>(`/api/v1/datasets/${id}/columns`, selection, { context: pageHandlesErrors() });
+  }
+
+  /** Runs an analysis on the dataset's counts, so the analysis records which dataset it came from. */
+  runAnalysis(id: number, request: DatasetAnalysisRequest): Observable<AnalysisRecord> {
+    return this.http.post<AnalysisRecord>(`/api/v1/datasets/${id}/analyses`, request, { context: pageHandlesErrors() });
   }
 }

@@ -1,6 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import type { Observable } from 'rxjs';
+import { pageHandlesErrors } from '../notify/page-handles-errors';
 
 /** The files a saved analysis can be downloaded as. */
 export type ReportFormat = 'markdown' | 'pdf' | 'csv';
@@ -21,6 +22,6 @@ export class ReportsApi {
   }
 
   download(analysisId: number, format: ReportFormat): Observable<Blob> {
-    return this.http.get(`/api/v1/analyses/${analysisId}/${REPORT_FILES[format]}`, { responseType: 'blob' });
+    return this.http.get(`/api/v1/analyses/${analysisId}/${REPORT_FILES[format]}`, { responseType: 'blob', context: pageHandlesErrors() });
   }
 }

@@ -1,26 +1,19 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
+import type { CreateShareRequest, Share } from '@tallyfit/contracts';
 import type { Observable } from 'rxjs';
+import { pageHandlesErrors } from '../notify/page-handles-errors';
 
-export interface ShareRequest {
-  /** the addresses the report goes to */
-  to: string[];
-  message?: string;
-}
-
-export interface ShareRecord {
-  id: number;
-  analysisId: number;
-  to: string[];
-  sentAt: string;
-}
-
-/** Shares over the API: send an analysis's report by e-mail. */
+/** Shares over the API: e-mail an analysis (a link and its report) to people; the dialog shows failures. */
 @Injectable({ providedIn: 'root' })
 export class SharesApi {
   private readonly http = inject(HttpClient);
 
-  share(analysisId: number, request: ShareRequest): Observable<ShareRecord> {
-    return this.http.post<ShareRecord>(`/api/v1/analyses/${analysisId}/shares`, request);
+  share(analysisId: number, request: CreateShareRequest): Observable<Share> {
+    return this.http.post<Share>(`/api/v1/analyses/${analysisId}/shares`, request, { context: pageHandlesErrors() });
+  }
+
+  list(analysisId: number): Observable<Share[]> {
+    return this.http.get<Share[]>(`/api/v1/analyses/${analysisId}/shares`, { context: pageHandlesErrors() });
   }
 }

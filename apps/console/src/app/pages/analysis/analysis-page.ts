@@ -1,53 +1,184 @@
 import { DatePipe, DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, numberAttribute } from '@angular/core';
+import { LiveAnnouncer } from '@angular/cdk/a11y';
+import { ChangeDetectionStrategy, Component, computed, inject, input, numberAttribute, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { MatCardModule } from '@angular/material/card';
+import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
+import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import type { AnalysisRecord } from '@tallyfit/contracts';
-import { catchError, map, of, startWith, switchMap } from 'rxjs';
+import { Router, RouterLink } from '@angular/router';
+import type { AnalysisChanges, AnalysisRecord } from '@tallyfit/contracts';
+import type { AnalysisSpec } from '@tallyfit/engine';
+import { combineLatest, switchMap } from 'rxjs';
 import { AnalysesApi } from '../../core/api/analyses-api';
 import { apiErrorMessage } from '../../core/api/api-error-message';
-import { formatP, formatStatistic } from '../../core/format/p-value';
-import { verdictFor } from './verdict';
+import { ReportsApi, type ReportFormat } from '../../core/api/reports-api';
+import { ReviewsApi } from '../../core/api/reviews-api';
+import { AuthSession } from '../../core/auth/auth-session';
+import { can } from '../../core/auth/permissions';
+import { saveFile } from '../../core/files/save-file';
+import { LOADING, toLoadState } from '../../core/load/load-state';
+import { AnalysisStatusChip } from '../../shared/analysis-status/analysis-status-chip';
+import { AssumptionCheckPanel, type Remedy } from './assumption-check';
+import { CategoriesTable } from './categories-table';
+import { mergedRun, withExactTest } from './category-merge';
+import { headlineFor } from './headline';
+import { ResultCharts } from './result-charts';
+import { ShareDialog, type ShareDialogData } from './share-dialog';
+import { testRows } from './test-rows';
+import { WriteUp } from './write-up';
 
-type LoadState = { analysis?: AnalysisRecord; error?: string; loading: boolean };
+/** What a re-run changed, kept for the version it produced. */
+interface RerunNote {
+  id: number;
+  what: string;
+  changes: AnalysisChanges;
+}
 
-/** One saved analysis: the decision in plain words and the test behind it. */
+/**
+ * One saved analysis: the headline in plain words, the tests side by side, the assumption check
+ * with its remedies, the categories, charts and write-up, and what can be done with it next.
+ */
 @Component({
   selector: 'tf-analysis-page',
-  imports: [DatePipe, DecimalPipe, MatCardModule, MatProgressBarModule],
+  imports: [
+    DatePipe,
+    DecimalPipe,
+    RouterLink,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+    AnalysisStatusChip,
+    AssumptionCheckPanel,
+    CategoriesTable,
+    ResultCharts,
+    WriteUp,
+  ],
   templateUrl: './analysis-page.html',
   styleUrl: './analysis-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class AnalysisPage {
   private readonly api = inject(AnalysesApi);
+  private readonly reports = inject(ReportsApi);
+  private readonly reviews = inject(ReviewsApi);
+  private readonly dialog = inject(MatDialog);
+  private readonly router = inject(Router);
+  private readonly announcer = inject(LiveAnnouncer);
+  private readonly user = inject(AuthSession).user;
 
   /** From the route (`/analyses/:id`). */
   readonly id = input.required({ transform: numberAttribute });
+  private readonly reload = signal(0);
 
-  private readonly state = toSignal(
-    toObservable(this.id).pipe(
-      switchMap((id) =>
-        this.api.get(id).pipe(
-          map((analysis): LoadState => ({ analysis, loading: false })),
-          catchError((error: unknown) => of<LoadState>({ error: apiErrorMessage(error), loading: false })),
-          startWith<LoadState>({ loading: true }),
-        ),
-      ),
-    ),
-    { initialValue: { loading: true } as LoadState },
+  protected readonly state = toSignal(
+    combineLatest([toObservable(this.id), toObservable(this.reload)]).pipe(switchMap(([id]) => toLoadState(this.api.get(id)))),
+    { initialValue: LOADING },
   );
-
-  protected readonly loading = computed(() => this.state().loading);
-  protected readonly error = computed(() => this.state().error);
-  protected readonly analysis = computed(() => this.state().analysis);
-  protected readonly alpha = computed(() => this.analysis()?.spec.alpha ?? 0.05);
-  protected readonly pearson = computed(() => this.analysis()?.result.tests.pearson);
-  protected readonly verdict = computed(() => {
-    const pearson = this.pearson();
-    return pearson ? verdictFor(pearson.p, this.alpha()) : null;
+  protected readonly analysis = computed(() => {
+    const state = this.state();
+    return state.status === 'loaded' ? state.value : null;
   });
-  protected readonly formatP = formatP;
-  protected readonly formatStatistic = formatStatistic;
+  protected readonly headline = computed(() => {
+    const analysis = this.analysis();
+    return analysis ? headlineFor(analysis.result) : null;
+  });
+  protected readonly tests = computed(() => {
+    const analysis = this.analysis();
+    return analysis ? testRows(analysis.result, analysis.spec.williams ?? false) : [];
+  });
+  protected readonly canRun = computed(() => can(this.user()?.role, 'runAnalysis'));
+  /** The API lets everyone but viewers e-mail an analysis they can read. */
+  protected readonly canShare = computed(() => ['admin', 'lead', 'analyst'].includes(this.user()?.role ?? ''));
+  protected readonly canSubmit = computed(() => {
+    const analysis = this.analysis();
+    return !!analysis && this.canRun() && analysis.isLatest && (analysis.status === 'draft' || analysis.status === 'returned');
+  });
+  protected readonly fileStem = computed(() => `analysis-${this.id()}`);
+
+  protected readonly busy = signal<string | null>(null);
+  protected readonly problem = signal<string | null>(null);
+  private readonly rerunNote = signal<RerunNote | null>(null);
+  protected readonly changes = computed(() => {
+    const note = this.rerunNote();
+    return note && note.id === this.id() ? note : null;
+  });
+
+  protected remedy(analysis: AnalysisRecord, remedy: Remedy): void {
+    if (remedy.kind === 'exact') {
+      this.runAgain(analysis, withExactTest(analysis.spec), 'Run again with the exact test added.');
+      return;
+    }
+    try {
+      const merged = mergedRun(analysis.spec, analysis.result, remedy.plan);
+      this.runAgain(analysis, merged.spec, `Run again with categories merged: ${merged.lines.join('; ')}.`);
+    } catch (error) {
+      this.problem.set(apiErrorMessage(error));
+    }
+  }
+
+  protected rerunOnCurrentEngine(analysis: AnalysisRecord): void {
+    this.runAgain(analysis, undefined, 'Run again with the current engine.');
+  }
+
+  private runAgain(analysis: AnalysisRecord, spec: AnalysisSpec | undefined, what: string): void {
+    this.busy.set('Running again…');
+    this.problem.set(null);
+    this.api.rerun(analysis.id, spec).subscribe({
+      next: ({ analysis: next, changes }) => {
+        this.busy.set(null);
+        this.rerunNote.set({ id: next.id, what, changes });
+        void this.announcer.announce(`${what} Version ${next.version} is shown.`);
+        void this.router.navigate(['/analyses', next.id]);
+      },
+      error: (error: unknown) => {
+        this.busy.set(null);
+        this.problem.set(apiErrorMessage(error));
+      },
+    });
+  }
+
+  protected submitForReview(analysis: AnalysisRecord): void {
+    this.busy.set('Submitting…');
+    this.problem.set(null);
+    this.reviews.submit(analysis.id).subscribe({
+      next: () => {
+        this.busy.set(null);
+        void this.announcer.announce('Submitted for review.');
+        this.reload.update((count) => count + 1);
+      },
+      error: (error: unknown) => {
+        this.busy.set(null);
+        this.problem.set(apiErrorMessage(error));
+      },
+    });
+  }
+
+  protected share(analysis: AnalysisRecord): void {
+    const data: ShareDialogData = { analysisId: analysis.id, title: analysis.title };
+    this.dialog
+      .open<ShareDialog, ShareDialogData, string[]>(ShareDialog, { data, width: '560px', maxWidth: '95vw' })
+      .afterClosed()
+      .subscribe((sentTo) => {
+        if (sentTo?.length) void this.announcer.announce(`Sent to ${sentTo.join(', ')}.`);
+        if (sentTo?.length) this.sentTo.set(sentTo);
+      });
+  }
+  protected readonly sentTo = signal<string[] | null>(null);
+
+  protected download(format: ReportFormat): void {
+    const id = this.id();
+    this.problem.set(null);
+    this.busy.set('Preparing the file…');
+    this.reports.download(id, format).subscribe({
+      next: (blob) => {
+        this.busy.set(null);
+        saveFile(blob, this.reports.fileName(id, format));
+      },
+      error: (error: unknown) => {
+        this.busy.set(null);
+        this.problem.set(apiErrorMessage(error));
+      },
+    });
+  }
 }

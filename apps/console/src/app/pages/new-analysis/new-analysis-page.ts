@@ -1,107 +1,144 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { BreakpointObserver } from '@angular/cdk/layout';
+import { DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, input, signal, untracked } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { FormArray, NonNullableFormBuilder, ReactiveFormsModule, Validators, type FormGroup, type FormControl } from '@angular/forms';
+import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatRadioModule } from '@angular/material/radio';
+import { MatSelectModule } from '@angular/material/select';
+import { MatStepperModule } from '@angular/material/stepper';
 import { Router } from '@angular/router';
-import type { CreateAnalysisRequest } from '@tallyfit/contracts';
+import type { Study } from '@tallyfit/contracts';
+import type { Hypothesis } from '@tallyfit/engine';
+import { catchError, interval, map, of, type Subscription } from 'rxjs';
 import { AnalysesApi } from '../../core/api/analyses-api';
 import { apiErrorMessage } from '../../core/api/api-error-message';
+import { DatasetsApi } from '../../core/api/datasets-api';
+import { StudiesApi } from '../../core/api/studies-api';
+import { AuthSession } from '../../core/auth/auth-session';
+import { analysisRequest, datasetAnalysisRequest, suggestedTitle } from './analysis-run';
+import { totalOf, type DataChoice } from './data-step/data-choice';
+import { DataStep } from './data-step/data-step';
+import { HypothesisStep } from './hypothesis-step/hypothesis-step';
+import type { AnalysisOptions } from './options-step/analysis-options';
+import { OptionsStep } from './options-step/options-step';
 
-type CategoryRow = FormGroup<{
-  label: FormControl<string>;
-  count: FormControl<number | null>;
-  share: FormControl<number | null>;
-}>;
+type RunState = { state: 'idle' } | { state: 'running'; seconds: number } | { state: 'stopped' } | { state: 'failed'; message: string };
 
-/** Shares may miss 1 by rounding; the engine renormalises within this and warns. */
-const SHARE_SUM_TOLERANCE = 0.01;
-
-/** Type the categories and their counts, say what was expected, and run the test. */
+/** The guided flow: the counts, what was expected, the tests and options, then the run. */
 @Component({
   selector: 'tf-new-analysis-page',
   imports: [
-    ReactiveFormsModule,
+    DecimalPipe,
+    FormsModule,
     MatButtonModule,
     MatFormFieldModule,
     MatIconModule,
     MatInputModule,
     MatProgressBarModule,
-    MatRadioModule,
+    MatSelectModule,
+    MatStepperModule,
+    DataStep,
+    HypothesisStep,
+    OptionsStep,
   ],
   templateUrl: './new-analysis-page.html',
   styleUrl: './new-analysis-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class NewAnalysisPage {
-  private readonly fb = inject(NonNullableFormBuilder);
-  private readonly api = inject(AnalysesApi);
+  private readonly analyses = inject(AnalysesApi);
+  private readonly datasets = inject(DatasetsApi);
   private readonly router = inject(Router);
+  private readonly user = inject(AuthSession).user;
+  private readonly destroyRef = inject(DestroyRef);
 
-  protected readonly form = this.fb.group({
-    title: ['', [Validators.required, Validators.maxLength(200)]],
-    hypothesis: this.fb.control<'equal' | 'proportions'>('equal'),
-    rows: this.fb.array<CategoryRow>([this.newRow('A'), this.newRow('B')]),
+  /** `?study=12` from a study's page preselects that study. */
+  readonly study = input<string | undefined>(undefined);
+
+  protected readonly narrow = toSignal(inject(BreakpointObserver).observe('(max-width: 720px)').pipe(map((state) => state.matches)), {
+    initialValue: false,
   });
-  protected readonly busy = signal(false);
-  protected readonly error = signal<string | null>(null);
 
-  private readonly value = toSignal(this.form.valueChanges, { initialValue: this.form.getRawValue() });
-  protected readonly usesShares = computed(() => this.value().hypothesis === 'proportions');
-  protected readonly shareSum = computed(() =>
-    (this.value().rows ?? []).reduce((sum, row) => sum + (Number(row.share) || 0), 0),
+  /** Studies the person may add analyses to: those they own or contribute to (admins: every open one). */
+  private readonly studyList = toSignal(
+    inject(StudiesApi)
+      .list()
+      .pipe(
+        map((studies) => ({ studies, failed: null as string | null })),
+        catchError((error: unknown) => of({ studies: [] as Study[], failed: apiErrorMessage(error) })),
+      ),
+    { initialValue: { studies: [] as Study[], failed: null } },
   );
-  protected readonly sharesOk = computed(() => !this.usesShares() || Math.abs(this.shareSum() - 1) <= SHARE_SUM_TOLERANCE);
+  protected readonly studies = computed(() =>
+    this.studyList().studies.filter(
+      (study) => !study.archived && (this.user()?.role === 'admin' || study.myStudyRole === 'owner' || study.myStudyRole === 'contributor'),
+    ),
+  );
+  protected readonly studiesFailed = computed(() => this.studyList().failed);
 
-  protected get rows(): FormArray<CategoryRow> {
-    return this.form.controls.rows;
+  protected readonly studyId = signal<number | null>(null);
+  protected readonly data = signal<DataChoice | null>(null);
+  protected readonly hypothesis = signal<Hypothesis | null>(null);
+  protected readonly options = signal<AnalysisOptions | null>(null);
+  protected readonly title = signal('');
+  private titleTouched = false;
+  protected readonly run = signal<RunState>({ state: 'idle' });
+  protected readonly n = computed(() => totalOf(this.data()?.observed.counts ?? []));
+  protected readonly ready = computed(() => !!this.data() && !!this.hypothesis() && !!this.options() && this.title().trim() !== '');
+  private running: Subscription | null = null;
+
+  constructor() {
+    effect(() => {
+      const wanted = Number(this.study());
+      if (Number.isInteger(wanted) && wanted > 0) untracked(() => this.studyId.set(wanted));
+    });
+    // Offer a title once the data and the hypothesis are known, until the person writes their own.
+    effect(() => {
+      const data = this.data();
+      const hypothesis = this.hypothesis();
+      if (data && hypothesis && !this.titleTouched) this.title.set(suggestedTitle(data, hypothesis));
+    });
+    this.destroyRef.onDestroy(() => this.running?.unsubscribe());
   }
 
-  protected addRow(): void {
-    this.rows.push(this.newRow(''));
+  protected setTitle(value: string): void {
+    this.titleTouched = true;
+    this.title.set(value);
   }
 
-  protected removeRow(index: number): void {
-    if (this.rows.length > 2) this.rows.removeAt(index);
-  }
-
-  protected submit(): void {
-    if (this.form.invalid || !this.sharesOk()) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    this.busy.set(true);
-    this.error.set(null);
-    this.api.create(this.request()).subscribe({
-      next: (analysis) => void this.router.navigate(['/analyses', analysis.id]),
+  protected start(): void {
+    const data = this.data();
+    const hypothesis = this.hypothesis();
+    const options = this.options();
+    if (!data || !hypothesis || !options || this.title().trim() === '') return;
+    const fromDataset = data.datasetId !== undefined ? datasetAnalysisRequest(this.title(), data, hypothesis, options) : null;
+    const run$ =
+      data.datasetId !== undefined && fromDataset
+        ? this.datasets.runAnalysis(data.datasetId, fromDataset)
+        : this.analyses.create(analysisRequest(this.title(), this.studyId(), data, hypothesis, options));
+    this.run.set({ state: 'running', seconds: 0 });
+    const clock = interval(1000).subscribe((seconds) => this.run.set({ state: 'running', seconds: seconds + 1 }));
+    this.running = run$.subscribe({
+      next: (analysis) => {
+        clock.unsubscribe();
+        void this.router.navigate(['/analyses', analysis.id]);
+      },
       error: (error: unknown) => {
-        this.busy.set(false);
-        this.error.set(apiErrorMessage(error));
+        clock.unsubscribe();
+        this.run.set({ state: 'failed', message: apiErrorMessage(error) });
       },
     });
+    this.running.add(clock);
   }
 
-  private request(): CreateAnalysisRequest {
-    const { title, hypothesis, rows } = this.form.getRawValue();
-    return {
-      title: title.trim(),
-      spec: {
-        observed: { labels: rows.map((row) => row.label.trim()), counts: rows.map((row) => Number(row.count)) },
-        hypothesis:
-          hypothesis === 'equal' ? { kind: 'equal' } : { kind: 'proportions', values: rows.map((row) => Number(row.share)) },
-      },
-    } as CreateAnalysisRequest;
-  }
-
-  private newRow(label: string): CategoryRow {
-    return this.fb.group({
-      label: this.fb.control(label, [Validators.required, Validators.maxLength(100)]),
-      count: this.fb.control<number | null>(null, [Validators.required, Validators.min(0), Validators.pattern(/^\d+$/)]),
-      share: this.fb.control<number | null>(null, [Validators.min(0), Validators.max(1)]),
-    });
+  /** Unsubscribing aborts the request; the server still finishes the run it started and saves it. */
+  protected stop(): void {
+    this.running?.unsubscribe();
+    this.running = null;
+    this.run.set({ state: 'stopped' });
   }
 }

@@ -1,0 +1,80 @@
+/**
+ * The tests of a result as rows to show side by side: name, statistic, df, p (APA style), and how
+ * the p-value was found (for the exact test: counted exactly or simulated, with its standard error).
+ */
+import type { AnalysisResult, MainTest } from '@tallyfit/engine';
+import { formatP, formatStatistic } from '../../core/format/p-value';
+
+export interface TestRow {
+  key: MainTest | 'williams';
+  name: string;
+  symbol: string;
+  statistic: string;
+  df: string;
+  p: string;
+  /** how the p-value was found, when that needs saying */
+  how: string;
+  /** the decision rests on this test */
+  main: boolean;
+}
+
+/** Very small p-values as a power of ten from log p, where p itself underflows to 0. */
+export function smallPNote(p: number, logP: number): string {
+  if (p > 0 || !Number.isFinite(logP)) return '';
+  const exponent = logP / Math.LN10;
+  return `p ≈ 10^${Math.floor(exponent)}`;
+}
+
+function exactHow(exact: NonNullable<AnalysisResult['tests']['exact']>): string {
+  const ordering = { probability: 'outcomes no more likely than the data', llr: 'G at least as large', pearson: 'X² at least as large' }[exact.ordering];
+  switch (exact.method) {
+    case 'binomial':
+      return 'Exact binomial test (two categories).';
+    case 'enumerate':
+      return `Every possible outcome counted; extreme means ${ordering}.${
+        exact.massBound ? ` At most ${exact.massBound.toExponential(1)} of probability left out.` : ''
+      }`;
+    case 'monte-carlo':
+      return `Simulated from ${(exact.samples ?? 0).toLocaleString('en-US')} samples (seed ${exact.seed ?? 0}); Monte Carlo standard error ${(exact.se ?? 0).toPrecision(2)}; extreme means ${ordering}.`;
+  }
+}
+
+export function testRows(result: AnalysisResult, williams: boolean): TestRow[] {
+  const { tests, conclusion } = result;
+  const rows: TestRow[] = [];
+  const chiSquare = (key: TestRow['key'], name: string, symbol: string, test: { statistic: number; df: number; p: number; logP: number }, how = '') =>
+    rows.push({
+      key,
+      name,
+      symbol,
+      statistic: formatStatistic(test.statistic),
+      df: String(test.df),
+      p: formatP(test.p),
+      how: [how, smallPNote(test.p, test.logP)].filter(Boolean).join(' '),
+      main: conclusion.test === key,
+    });
+  if (tests.pearson) chiSquare('pearson', "Pearson's chi-square", 'X²', tests.pearson);
+  if (tests.g) {
+    chiSquare('g', 'G-test (likelihood ratio)', 'G', tests.g);
+    if (williams) {
+      const corrected = tests.g.williams;
+      chiSquare('williams', "G-test with Williams' correction", 'G/q', { ...corrected, df: tests.g.df }, `q = ${corrected.q.toFixed(4)}.`);
+    }
+  }
+  if (tests.cressieRead) {
+    chiSquare('cressieRead', `Cressie–Read (λ = ${Number(tests.cressieRead.lambda.toFixed(3))})`, 'CR', tests.cressieRead);
+  }
+  if (tests.exact) {
+    rows.push({
+      key: 'exact',
+      name: 'Exact multinomial test',
+      symbol: '—',
+      statistic: '—',
+      df: '—',
+      p: formatP(tests.exact.p),
+      how: [exactHow(tests.exact), smallPNote(tests.exact.p, tests.exact.logP)].filter(Boolean).join(' '),
+      main: conclusion.test === 'exact',
+    });
+  }
+  return rows;
+}

@@ -1,0 +1,19 @@
+import type { CountSelection } from '@tallyfit/contracts';
+import type { ParsedCounts } from './pasted-counts';
+
+export type DataSource = 'upload' | 'paste' | 'type';
+
+/** The observed counts the analysis will test, and where they came from. */
+export interface DataChoice {
+  source: DataSource;
+  observed: ParsedCounts;
+  /** set when the counts come from an uploaded dataset */
+  datasetId?: number;
+  datasetName?: string;
+  /** the column choice that turned the dataset's rows into these counts */
+  selection?: CountSelection;
+}
+
+export function totalOf(counts: readonly number[]): number {
+  return counts.reduce((sum, count) => sum + count, 0);
+}

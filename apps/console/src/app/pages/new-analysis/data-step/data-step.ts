@@ -1,0 +1,70 @@
+import { DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, effect, input, model, output, signal } from '@angular/core';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import type { Study } from '@tallyfit/contracts';
+import { totalOf, type DataChoice, type DataSource } from './data-choice';
+import { DatasetUpload, type DatasetCounts } from './dataset-upload';
+import { parsePastedCounts, type ParsedCounts } from './pasted-counts';
+import { TypedCounts } from './typed-counts';
+
+/** The first step: where the counts come from — an uploaded file, pasted text, or typed rows. */
+@Component({
+  selector: 'tf-data-step',
+  imports: [DecimalPipe, MatButtonToggleModule, MatFormFieldModule, MatInputModule, MatSelectModule, DatasetUpload, TypedCounts],
+  templateUrl: './data-step.html',
+  styleUrl: './data-step.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class DataStep {
+  /** studies the person may add to (needed for uploads) */
+  readonly studies = input<Study[]>([]);
+  readonly studyId = model<number | null>(null);
+  readonly dataChange = output<DataChoice | null>();
+
+  protected readonly total = totalOf;
+  protected readonly source = signal<DataSource>('type');
+  protected readonly pasted = signal('');
+  protected readonly pasteOutcome = computed(() => (this.pasted().trim() === '' ? null : parsePastedCounts(this.pasted())));
+  private readonly typed = signal<ParsedCounts | null>(null);
+  private readonly uploaded = signal<DatasetCounts | null>(null);
+
+  protected readonly choice = computed((): DataChoice | null => {
+    switch (this.source()) {
+      case 'type': {
+        const typed = this.typed();
+        return typed ? { source: 'type', observed: typed } : null;
+      }
+      case 'paste': {
+        const outcome = this.pasteOutcome();
+        return outcome?.ok ? { source: 'paste', observed: outcome.data } : null;
+      }
+      case 'upload': {
+        const uploaded = this.uploaded();
+        return uploaded
+          ? {
+              source: 'upload',
+              observed: uploaded.counts,
+              datasetId: uploaded.datasetId,
+              datasetName: uploaded.datasetName,
+              selection: uploaded.selection,
+            }
+          : null;
+      }
+    }
+  });
+
+  constructor() {
+    effect(() => this.dataChange.emit(this.choice()));
+  }
+
+  protected onTyped(counts: ParsedCounts | null): void {
+    this.typed.set(counts);
+  }
+
+  protected onUploaded(counts: DatasetCounts | null): void {
+    this.uploaded.set(counts);
+  }
+}

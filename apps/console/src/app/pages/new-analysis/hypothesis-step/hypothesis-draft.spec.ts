@@ -1,0 +1,106 @@
+import { buildHypothesis, previewExpected, type HypothesisDraft } from './hypothesis-draft';
+
+const draft = (overrides: Partial<HypothesisDraft>): HypothesisDraft => ({
+  kind: 'equal',
+  values: [],
+  ratio: '',
+  family: 'poisson',
+  params: {},
+  breaks: '',
+  ...overrides,
+});
+
+describe('buildHypothesis', () => {
+  it('accepts shares that add up to 1 and refuses ones that do not, saying the sum', () => {
+    expect(buildHypothesis(draft({ kind: 'proportions', values: [0.5, 0.3, 0.2] }), 3, 10)).toEqual({
+      ok: true,
+      hypothesis: { kind: 'proportions', values: [0.5, 0.3, 0.2] },
+    });
+    expect(buildHypothesis(draft({ kind: 'proportions', values: [0.5, 0.3, 0.3] }), 3, 10)).toEqual({
+      ok: false,
+      errors: ['The shares add up to 1.1; they must add up to 1.'],
+    });
+  });
+
+  it('allows shares rounded to a published table’s precision', () => {
+    expect(buildHypothesis(draft({ kind: 'proportions', values: [0.333, 0.333, 0.333] }), 3, 10).ok).toBe(true);
+  });
+
+  it('asks for a value in every category', () => {
+    expect(buildHypothesis(draft({ kind: 'counts', values: [5, null] }), 2, 10)).toEqual({
+      ok: false,
+      errors: ['Give an expected count for every category.'],
+    });
+  });
+
+  it('checks that expected counts add up to the number of observations', () => {
+    expect(buildHypothesis(draft({ kind: 'counts', values: [5, 4] }), 2, 10)).toEqual({
+      ok: false,
+      errors: ['The expected counts add up to 9; they must add up to the 10 observations.'],
+    });
+  });
+
+  it('reads a ratio and checks it has one term per category', () => {
+    expect(buildHypothesis(draft({ kind: 'ratio', ratio: '9:3:3:1' }), 4, 10)).toEqual({
+      ok: true,
+      hypothesis: { kind: 'ratio', values: [9, 3, 3, 1] },
+    });
+    expect(buildHypothesis(draft({ kind: 'ratio', ratio: '1:2:1' }), 4, 10)).toEqual({
+      ok: false,
+      errors: ['The ratio has 3 terms but there are 4 categories.'],
+    });
+    expect(buildHypothesis(draft({ kind: 'ratio', ratio: '3:x' }), 2, 10)).toEqual({
+      ok: false,
+      errors: ['Ratio: "x" is not a number of 0 or more.'],
+    });
+  });
+
+  it('leaves an empty parameter to be estimated but insists on the binomial’s trials', () => {
+    expect(buildHypothesis(draft({ kind: 'distribution', family: 'poisson', params: { lambda: null } }), 4, 10)).toEqual({
+      ok: true,
+      hypothesis: { kind: 'distribution', family: 'poisson' },
+    });
+    expect(buildHypothesis(draft({ kind: 'distribution', family: 'binomial', params: { p: 0.5 } }), 4, 10)).toEqual({
+      ok: false,
+      errors: ['Trials per observation is needed for this family.'],
+    });
+  });
+
+  it('needs one bin boundary fewer than bins for the normal family', () => {
+    expect(buildHypothesis(draft({ kind: 'distribution', family: 'normal', breaks: '10, 20' }), 4, 10)).toEqual({
+      ok: false,
+      errors: ['Give 3 bin boundaries for the 4 bins (one between each pair of neighbouring bins).'],
+    });
+    expect(buildHypothesis(draft({ kind: 'distribution', family: 'normal', breaks: '-1 0 1' }), 4, 10)).toEqual({
+      ok: true,
+      hypothesis: { kind: 'distribution', family: 'normal', breaks: [-1, 0, 1] },
+    });
+  });
+});
+
+describe('previewExpected', () => {
+  it('shows the expected counts of a 9:3:3:1 ratio (n × 9/16 and so on)', () => {
+    const preview = previewExpected({ labels: ['a', 'b', 'c', 'd'], counts: [90, 35, 25, 10] }, { kind: 'ratio', values: [9, 3, 3, 1] });
+    expect(preview.ok).toBe(true);
+    if (!preview.ok) return;
+    // 160 observations: 160·9/16 = 90, 160·3/16 = 30, 160·1/16 = 10 (arithmetic, common practice).
+    expect(preview.rows.map((row) => row.expected)).toEqual([90, 30, 30, 10]);
+    expect(preview.df).toBe(3);
+  });
+
+  it('fits a Poisson mean from the data and removes a degree of freedom', () => {
+    // counts of 0, 1, 2, 3 events: mean = (0·10 + 1·20 + 2·15 + 3·5) / 50 = 65 / 50 = 1.3
+    const preview = previewExpected({ labels: ['0', '1', '2', '3'], counts: [10, 20, 15, 5] }, { kind: 'distribution', family: 'poisson' });
+    expect(preview.ok).toBe(true);
+    if (!preview.ok) return;
+    expect(preview.fitted?.['lambda']).toBeCloseTo(1.3, 12);
+    // Poisson(1.3) probability of 0 is e^−1.3 = 0.272532 (arithmetic), times 50 observations.
+    expect(preview.rows[0].expected).toBeCloseTo(50 * Math.exp(-1.3), 9);
+    expect(preview.df).toBe(2);
+  });
+
+  it('returns the engine’s message when the data cannot carry the hypothesis', () => {
+    const preview = previewExpected({ labels: ['low', 'high'], counts: [3, 4] }, { kind: 'distribution', family: 'poisson' });
+    expect(preview).toEqual({ ok: false, errors: ['for a poisson fit each label must be a whole number (the counted value), got "low"'] });
+  });
+});
