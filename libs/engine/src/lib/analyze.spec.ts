@@ -330,3 +330,63 @@ describe('analyze: properties', () => {
     );
   });
 });
+
+describe('analyze: never NaN across hypothesis kinds and options (property)', () => {
+  const options = fc.record({
+    tests: fc.constantFrom<AnalysisSpec['tests']>(['pearson', 'g', 'cressie-read'], ['g'], ['cressie-read', 'pearson']),
+    cressieReadLambda: fc.double({ min: -0.9, max: 3, noNaN: true }),
+    intervals: fc.record({
+      method: fc.constantFrom('wilson' as const, 'goodman' as const, 'quesenberry-hurst' as const, 'sison-glaz' as const),
+      level: fc.double({ min: 0.5, max: 0.999, noNaN: true }),
+    }),
+    posthoc: fc.record({ adjust: fc.constantFrom('holm' as const, 'bonferroni' as const, 'none' as const) }),
+    williams: fc.boolean(),
+  });
+  const countsArbitrary = fc
+    .array(fc.oneof(fc.integer({ min: 0, max: 20 }), fc.integer({ min: 0, max: 100_000 })), { minLength: 2, maxLength: 12 })
+    .filter((counts) => counts.some((c) => c > 0));
+
+  function check(spec: AnalysisSpec): void {
+    const result = analyze(spec);
+    const text = JSON.stringify(result);
+    expect(text).not.toMatch(/NaN|null|Infinity/);
+    expect(JSON.parse(text)).toEqual(result);
+    for (const test of Object.values(result.tests)) {
+      expect(test.p).toBeGreaterThanOrEqual(0);
+      expect(test.p).toBeLessThanOrEqual(1);
+    }
+    for (const row of result.categories) {
+      expect(row.interval.low).toBeGreaterThanOrEqual(0);
+      expect(row.interval.high).toBeLessThanOrEqual(1);
+      expect(row.interval.low).toBeLessThanOrEqual(row.interval.high);
+    }
+  }
+
+  it('for given shares and ratios', () => {
+    fc.assert(
+      fc.property(countsArbitrary, options, fc.array(fc.integer({ min: 1, max: 50 }), { minLength: 12, maxLength: 12 }), (counts, extra, weights) => {
+        check({ observed: { labels: counts.map((_, i) => `g${i}`), counts }, hypothesis: { kind: 'ratio', values: weights.slice(0, counts.length) }, ...extra });
+      }),
+      { numRuns: 60 },
+    );
+  });
+
+  it('for fitted families', () => {
+    fc.assert(
+      fc.property(
+        countsArbitrary,
+        options,
+        fc.constantFrom('poisson' as const, 'geometric' as const, 'binomial' as const, 'discrete-uniform' as const),
+        (counts, extra, family) => {
+          const nonZeroValues = counts.some((c, i) => c > 0 && i > 0);
+          // a fitted family with one estimated parameter needs at least 3 categories
+          fc.pre(nonZeroValues && counts.filter((c) => c > 0).length >= 2 && counts.length >= 3);
+          const labels = counts.map((_, i) => String(i));
+          const params = family === 'binomial' ? { trials: counts.length - 1 + 3 } : undefined;
+          check({ observed: { labels, counts }, hypothesis: { kind: 'distribution', family, ...(params ? { params } : {}) }, ...extra });
+        },
+      ),
+      { numRuns: 60 },
+    );
+  });
+});

@@ -194,7 +194,8 @@ export function analyze(input: AnalysisSpec, options: AnalyzeOptions = {}): Anal
       tests.g = { ...g, williams: { q, statistic: corrected.statistic, p: corrected.p, logP: corrected.logP } };
       lines.g = spec.williams ? gLine(corrected, n, q) : gLine(g, n);
     } else if (test === 'cressie-read') {
-      const lambda = spec.cressieReadLambda ?? DEFAULT_CRESSIE_READ_LAMBDA;
+      // `+ 0` turns a −0 from the spec into 0, which JSON would do anyway.
+      const lambda = (spec.cressieReadLambda ?? DEFAULT_CRESSIE_READ_LAMBDA) + 0;
       tests.cressieRead = { ...chiSquareTestResult(cressieReadStatistic(activeCounts, activeExpected, lambda), df), lambda };
       lines.cressieRead = cressieReadLine(tests.cressieRead, n, lambda);
     } else {

@@ -14,7 +14,6 @@ interface JStat {
   poisson: { pdf(k: number, lambda: number): number; cdf(k: number, lambda: number): number };
 }
 
-// eslint-disable-next-line @typescript-eslint/no-require-imports
 export const jStat: JStat = require('jstat').jStat ?? require('jstat');
 
 export const stdlibChiSquareCdf: (x: number, df: number) => number = stdlibChiSquareCdfImpl;

@@ -39,6 +39,7 @@ describe('test statistics', () => {
         expectClose(cressieReadStatistic(counts, expected, 1), pearson, { relative: 1e-9, absolute: 1e-9 });
         expectClose(cressieReadStatistic(counts, expected, 0), g, { relative: 1e-12, absolute: 1e-12 });
         expectClose(cressieReadStatistic(counts, expected, 1e-9), g, { relative: 1e-6, absolute: 1e-7 });
+        expectClose(cressieReadStatistic(counts, expected, Number.MIN_VALUE), g, { relative: 1e-12, absolute: 1e-12 });
         expectClose(cressieReadStatistic(counts, expected, -0.5), freemanTukey, { relative: 1e-9, absolute: 1e-9 });
       }),
       { numRuns: 200 },
