@@ -334,6 +334,11 @@ describe('exactMultinomialTest', () => {
       ['zero samples', () => exactMultinomialTest([3, 1], [0.5, 0.5], { ...options, samples: 0 }), 'options.samples'],
       ['a fractional seed', () => exactMultinomialTest([3, 1], [0.5, 0.5], { ...options, seed: 0.5 }), 'options.seed'],
       ['a negative budget', () => exactMultinomialTest([3, 1], [0.5, 0.5], { ...options, workBudget: -1 }), 'options.workBudget'],
+      [
+        'exact enumeration of a problem far too large to list',
+        () => exactMultinomialTest(new Array(40).fill(500), new Array(40).fill(1 / 40), { ...options, method: 'enumerate' }),
+        'options.method',
+      ],
     ];
     for (const [name, run, path] of cases) {
       it(`rejects ${name}, naming ${path}`, () => {

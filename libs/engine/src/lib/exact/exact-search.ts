@@ -59,6 +59,8 @@ const CORE_RELIABLE_P = 1e-5;
 const TAIL_FIRST_LOG_P = Math.log(1e-7);
 /** Mass left out by the tail search, relative to a lower bound of p. */
 const RELATIVE_CUTOFF = 1e-10;
+/** Skip a search outright when the volume estimate exceeds the remaining budget this many times over. */
+const PRESCREEN_FACTOR = 8;
 
 interface SearchContext {
   problem: ExactProblem;
@@ -66,7 +68,8 @@ interface SearchContext {
   threshold: number;
   logOffset: number;
   logObserved: number;
-  split: HalfSplit;
+  /** Pearson X² of the observed counts: sets how far from expectation each search reaches */
+  pearson: number;
   budget: number;
   spent: number;
   onProgress?: (fraction: number) => void;
@@ -101,6 +104,7 @@ function layoutFor(
 /** Windows, tables, layouts and counts for one search; undefined windows means some category admits no count. */
 function prepare(
   context: SearchContext,
+  split: HalfSplit,
   filterFor: (i: number) => CountFilter,
   scoreIsStatistic: boolean,
   limit: number,
@@ -108,7 +112,9 @@ function prepare(
   | { kind: 'empty' }
   | { kind: 'over-budget' }
   | { kind: 'ready'; layouts: HalfLayout[]; counts: HalfCounts[]; work: number } {
-  const { problem, expected, split } = context;
+  const { problem, expected } = context;
+  // The volume estimate is accurate to a small factor; far over budget, skip even the counting pass.
+  if (split.estimatedWork > PRESCREEN_FACTOR * (context.budget - context.spent)) return { kind: 'over-budget' };
   const tables: CategoryTable[] = [];
   for (let i = 0; i < problem.shares.length; i++) {
     const window = countWindow(problem.n, problem.shares[i], filterFor(i));
@@ -153,8 +159,11 @@ function joinProgress(context: SearchContext): ((fraction: number) => void) | un
 function coreSearch(context: SearchContext): Attempt {
   const { problem, threshold, logOffset } = context;
   const limit = threshold + pruningSlack(threshold);
+  const { shares, n } = problem;
+  const split = chooseHalfSplit(shares, n, Math.sqrt(Math.max(context.pearson, shares.length - 1)));
   const prepared = prepare(
     context,
+    split,
     (i) => coreCountFilter(problem.ordering, problem.n, problem.shares[i], limit, logOffset),
     true,
     limit,
@@ -187,7 +196,10 @@ function tailSearch(context: SearchContext, logMassBound: number): Attempt {
   const logCutoff = logMassBound - logOutcomeCount(problem.n, problem.shares.length);
   const slack = pruningSlack(logCutoff);
   const limit = logOffset - logCutoff + slack;
-  const prepared = prepare(context, (i) => tailCountFilter(problem.n, problem.shares[i], logCutoff - slack), false, limit);
+  // The listed region reaches out to probability τ: on the chi-square scale about X²(obs) + 2 ln(P(obs) / τ).
+  const reach = context.pearson + 2 * Math.max(0, context.logObserved - logCutoff);
+  const split = chooseHalfSplit(problem.shares, problem.n, Math.sqrt(Math.max(reach, problem.shares.length - 1)));
+  const prepared = prepare(context, split, (i) => tailCountFilter(problem.n, problem.shares[i], logCutoff - slack), false, limit);
   if (prepared.kind === 'empty') throw new Error('the observed outcome fell below the tail cut-off');
   if (prepared.kind === 'over-budget') return prepared;
   context.spent += prepared.work;
@@ -233,7 +245,7 @@ export function exactSearch(
     threshold: extremeThreshold(ordering, observedStatistic),
     logOffset: logProbabilityOffset(n),
     logObserved,
-    split: chooseHalfSplit(shares, n, Math.sqrt(Math.max(pearson, k - 1))),
+    pearson,
     budget,
     spent: 0,
     onProgress,

@@ -16,6 +16,8 @@ export interface HalfSplit {
   second: number[];
   /** both halves hold the same shares, so one list serves both */
   mirrored: boolean;
+  /** the volume estimate of how many vectors the halves list together (order of magnitude only) */
+  estimatedWork: number;
 }
 
 const EXHAUSTIVE_LIMIT = 20000;
@@ -127,7 +129,7 @@ export function chooseHalfSplit(shares: readonly number[], n: number, radius: nu
   });
   const chosen = best;
   const mirrored = runs.every((run, r) => chosen[r] === run.size - chosen[r]);
-  return { first: widestLast(first, logSd), second: widestLast(second, logSd), mirrored };
+  return { first: widestLast(first, logSd), second: widestLast(second, logSd), mirrored, estimatedWork: bestCost };
 }
 
 /**

@@ -8,9 +8,9 @@
  * - `pearson`: outcomes whose Pearson X² is at least the observed one.
  * Ties are judged with a relative tolerance of 1e-7 (see category-terms.ts).
  *
- * `method: 'enumerate'` always computes the exact value (exact-search.ts); `'monte-carlo'` always
- * samples (monte-carlo-test.ts); `'auto'` computes exactly while the counted work stays within
- * `workBudget` and samples otherwise.
+ * `method: 'enumerate'` computes the exact value (exact-search.ts), refusing only problems beyond
+ * ENUMERATION_WORK_LIMIT; `'monte-carlo'` always samples (monte-carlo-test.ts); `'auto'` computes
+ * exactly while the counted work stays within `workBudget` and samples otherwise.
  */
 import { EngineInputError } from '../spec/engine-input-error';
 import { OrderingName } from './category-terms';
@@ -27,7 +27,7 @@ export interface ExactTestOptions {
   samples?: number;
   /** Monte Carlo seed (default 20250101); the same seed gives the same result */
   seed?: number;
-  /** largest exact work, in listed partial outcomes plus counting visits, before `auto` samples instead */
+  /** largest exact work (listed partial outcomes plus counting visits) before `auto` samples instead; default 30 000 000 */
   workBudget?: number;
   /** called with the fraction done, in [0, 1], during the computation */
   onProgress?: (fraction: number) => void;
@@ -51,8 +51,14 @@ export interface ExactTestOutcome {
 
 export const DEFAULT_MONTE_CARLO_SAMPLES = 100_000;
 export const DEFAULT_MONTE_CARLO_SEED = 20250101;
-/** Sized so that the exact searches that fit take at most a few seconds on a 2-core machine (see tools/bench). */
-export const DEFAULT_WORK_BUDGET = 50_000_000;
+/**
+ * One work unit is one partial outcome vector listed (16 bytes while listed) or visited while
+ * counting. Measured at about 15 million units per CPU-second on a 2-core machine (tools/bench),
+ * so the default keeps `auto` under ~2 s and ~500 MB.
+ */
+export const DEFAULT_WORK_BUDGET = 30_000_000;
+/** Even `method: 'enumerate'` stops here (~1.6 GB of lists) rather than exhaust memory. */
+export const ENUMERATION_WORK_LIMIT = 100_000_000;
 
 const ORDERINGS: readonly ExactOrdering[] = ['probability', 'llr', 'pearson'];
 const METHODS: readonly ExactMethod[] = ['auto', 'enumerate', 'monte-carlo'];
@@ -145,8 +151,15 @@ export function exactMultinomialTest(
     return { ordering, method: 'enumerate', p: 1, logP: 0, outcomesVisited: 1, massBound: 0 };
   }
   if (options.method !== 'monte-carlo') {
-    const budget = options.method === 'enumerate' ? Infinity : (options.workBudget ?? DEFAULT_WORK_BUDGET);
+    const forced = options.method === 'enumerate';
+    const budget = forced ? ENUMERATION_WORK_LIMIT : (options.workBudget ?? DEFAULT_WORK_BUDGET);
     const exact = exactSearch({ ordering, ...input }, budget, options.onProgress);
+    if (!exact && forced) {
+      throw EngineInputError.at(
+        'options.method',
+        `exact enumeration would need more than ${ENUMERATION_WORK_LIMIT} work units for these counts; use 'auto' or 'monte-carlo'`,
+      );
+    }
     if (exact) {
       return {
         ordering,
