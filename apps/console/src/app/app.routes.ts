@@ -47,7 +47,14 @@ export const appRoutes: Routes = [
       {
         path: 'analyses/new',
         title: 'New analysis · Tallyfit',
+        canMatch: [roleGuard('admin', 'analyst')],
         loadComponent: () => import('./pages/new-analysis/new-analysis-page').then((m) => m.NewAnalysisPage),
+      },
+      {
+        path: 'planner',
+        title: 'Planner · Tallyfit',
+        canMatch: [roleGuard('admin', 'lead', 'analyst')],
+        loadComponent: () => import('./pages/planner/planner-page').then((m) => m.PlannerPage),
       },
       {
         path: 'analyses/:id',

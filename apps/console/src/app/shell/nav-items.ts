@@ -16,6 +16,8 @@ export const MAIN_NAV: readonly NavItem[] = [
   { path: '/history', label: 'History', icon: 'history' },
   { path: '/analyses', label: 'My analyses', icon: 'list_alt', exact: true },
   { path: '/analyses/new', label: 'New analysis', icon: 'add_chart', roles: ['admin', 'analyst'] },
+  // Planning future checks is for those who run or direct them; viewers only read results.
+  { path: '/planner', label: 'Planner', icon: 'query_stats', roles: ['admin', 'lead', 'analyst'] },
 ];
 
 /** The admin area's places. */

@@ -5,6 +5,7 @@ import { Router, provideRouter } from '@angular/router';
 import type { AnalysisRecord, Role } from '@tallyfit/contracts';
 import { analyze, type AnalysisSpec } from '@tallyfit/engine';
 import { storeSession } from '../../testing/fixtures';
+import { stubIntersectionObserver } from '../../testing/intersection-observer-stub';
 import { AnalysisPage } from './analysis-page';
 
 /** An invented defect tally whose last two categories are expected to be sparse. */
@@ -36,22 +37,8 @@ function record(change: Partial<AnalysisRecord> = {}, spec: AnalysisSpec = spars
   };
 }
 
-/** jsdom has no IntersectionObserver; the deferred charts and write-up only need it to exist here. */
-class NoIntersections {
-  readonly observed: Element[] = [];
-  observe(target: Element): void {
-    this.observed.push(target);
-  }
-  unobserve(): void {
-    this.observed.length = 0;
-  }
-  disconnect(): void {
-    this.observed.length = 0;
-  }
-}
-
 describe('AnalysisPage', () => {
-  beforeAll(() => Object.assign(globalThis, { IntersectionObserver: NoIntersections }));
+  beforeAll(stubIntersectionObserver);
 
   let http: HttpTestingController;
   let fixture: ComponentFixture<AnalysisPage>;

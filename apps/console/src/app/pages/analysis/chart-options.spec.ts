@@ -1,5 +1,6 @@
 import { analyze } from '@tallyfit/engine';
-import { residualsChartOptions, RESIDUAL_GUIDE, sharesChartOptions, type ChartColours } from './chart-options';
+import type { ChartColours } from '../../shared/charts/theme-colours';
+import { residualsChartOptions, RESIDUAL_GUIDE, sharesChartOptions } from './chart-options';
 
 const colours: ChartColours = { primary: '#123', tertiary: '#456', text: '#000', grid: '#ccc', surface: '#fff' };
 const result = analyze({ observed: { labels: ['a', 'b', 'c'], counts: [30, 50, 20] }, hypothesis: { kind: 'equal' } });

@@ -5,17 +5,11 @@
  * residual chart marks the ±1.96 lines with words.
  */
 import type { CategoryRow } from '@tallyfit/engine';
+import type { ChartColours } from '../../shared/charts/theme-colours';
 
 /** Adjusted residuals beyond this are unusual at the 5% level for one category (two-sided normal quantile). */
 export const RESIDUAL_GUIDE = 1.96;
 
-export interface ChartColours {
-  primary: string;
-  tertiary: string;
-  text: string;
-  grid: string;
-  surface: string;
-}
 
 const percent = (value: number): string => `${(value * 100).toFixed(1)}%`;
 

@@ -3,9 +3,9 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import type { AnalysisResult } from '@tallyfit/engine';
 import { NgxEchartsDirective, provideEchartsCore } from 'ngx-echarts';
-import { saveChartAsPng, saveChartAsSvg, type SvgChart } from './chart-export';
+import { saveChartAsPng, saveChartAsSvg, type SvgChart } from '../../shared/charts/chart-export';
+import { themeColours } from '../../shared/charts/theme-colours';
 import { residualsChartOptions, RESIDUAL_GUIDE, sharesChartOptions } from './chart-options';
-import { themeColours } from './theme-colours';
 
 const INTERVAL_NAMES: Record<AnalysisResult['intervals']['method'], string> = {
   wilson: 'Wilson',
@@ -18,7 +18,7 @@ const INTERVAL_NAMES: Record<AnalysisResult['intervals']['method'], string> = {
 @Component({
   selector: 'tf-result-charts',
   imports: [MatButtonModule, MatIconModule, NgxEchartsDirective],
-  providers: [provideEchartsCore({ echarts: () => import('./echarts-parts').then((m) => m.echarts) })],
+  providers: [provideEchartsCore({ echarts: () => import('../../shared/charts/echarts-parts').then((m) => m.echarts) })],
   templateUrl: './result-charts.html',
   styleUrl: './result-charts.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

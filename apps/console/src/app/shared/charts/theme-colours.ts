@@ -1,4 +1,11 @@
-import type { ChartColours } from './chart-options';
+/** The theme colours a chart needs. */
+export interface ChartColours {
+  primary: string;
+  tertiary: string;
+  text: string;
+  grid: string;
+  surface: string;
+}
 
 /**
  * The theme's colours as plain rgb() strings for the charts: the `--mat-sys-*` tokens may be
