@@ -336,7 +336,12 @@ describe('exactMultinomialTest', () => {
       ['a negative budget', () => exactMultinomialTest([3, 1], [0.5, 0.5], { ...options, workBudget: -1 }), 'options.workBudget'],
       [
         'exact enumeration of a problem far too large to list',
-        () => exactMultinomialTest(new Array(40).fill(500), new Array(40).fill(1 / 40), { ...options, method: 'enumerate' }),
+        () =>
+          exactMultinomialTest(
+            Array.from({ length: 40 }, (_, i) => (i % 2 === 0 ? 470 : 530)),
+            new Array(40).fill(1 / 40),
+            { ...options, method: 'enumerate' },
+          ),
         'options.method',
       ],
     ];

@@ -29,7 +29,7 @@ import {
 } from './category-tables';
 import { extremeThreshold, logProbabilityOffset, logWeightTerm, OrderingName, statisticTerm } from './category-terms';
 import { countHalf, fillHalf, HalfCounts, HalfLayout, HalfLists } from './half-enumeration';
-import { chooseHalfSplit, HalfSplit } from './half-split';
+import { chooseHalfSplit } from './half-split';
 import { logMassAtOrAboveThreshold, massBelowThreshold, sortBuckets } from './meet-in-the-middle';
 import { buildSuffixMinimum } from './suffix-minimum';
 
@@ -101,10 +101,13 @@ function layoutFor(
   return { n, tables: ordered, suffix: buildSuffixMinimum(ordered), size: half.length, groupPosition, limit };
 }
 
-/** Windows, tables, layouts and counts for one search; undefined windows means some category admits no count. */
+/**
+ * Windows, split, tables, layouts and counts for one search ('empty' when some category admits no
+ * count at all). `reach` is how far the search extends on the chi-square scale.
+ */
 function prepare(
   context: SearchContext,
-  split: HalfSplit,
+  reach: number,
   filterFor: (i: number) => CountFilter,
   scoreIsStatistic: boolean,
   limit: number,
@@ -113,14 +116,16 @@ function prepare(
   | { kind: 'over-budget' }
   | { kind: 'ready'; layouts: HalfLayout[]; counts: HalfCounts[]; work: number } {
   const { problem, expected } = context;
+  const { shares, n } = problem;
+  const windows = shares.map((share, i) => countWindow(n, share, filterFor(i)));
+  if (windows.some((window) => window.hi < window.lo)) return { kind: 'empty' };
+  const widths = windows.map((window) => window.hi - window.lo + 1);
+  const split = chooseHalfSplit(shares, n, Math.sqrt(Math.max(reach, 1)), widths);
   // The volume estimate is accurate to a small factor; far over budget, skip even the counting pass.
   if (split.estimatedWork > PRESCREEN_FACTOR * (context.budget - context.spent)) return { kind: 'over-budget' };
-  const tables: CategoryTable[] = [];
-  for (let i = 0; i < problem.shares.length; i++) {
-    const window = countWindow(problem.n, problem.shares[i], filterFor(i));
-    if (window.hi < window.lo) return { kind: 'empty' };
-    tables.push(buildCategoryTable(problem.ordering, expected[i], window.lo, window.hi, scoreIsStatistic));
-  }
+  const tables = windows.map((window, i) =>
+    buildCategoryTable(problem.ordering, expected[i], window.lo, window.hi, scoreIsStatistic),
+  );
   const layouts = [layoutFor(tables, problem.shares, split.first, split.second, problem.n, limit)];
   if (!split.mirrored) layouts.push(layoutFor(tables, problem.shares, split.second, split.first, problem.n, limit));
   const counts: HalfCounts[] = [];
@@ -159,11 +164,9 @@ function joinProgress(context: SearchContext): ((fraction: number) => void) | un
 function coreSearch(context: SearchContext): Attempt {
   const { problem, threshold, logOffset } = context;
   const limit = threshold + pruningSlack(threshold);
-  const { shares, n } = problem;
-  const split = chooseHalfSplit(shares, n, Math.sqrt(Math.max(context.pearson, shares.length - 1)));
   const prepared = prepare(
     context,
-    split,
+    context.pearson,
     (i) => coreCountFilter(problem.ordering, problem.n, problem.shares[i], limit, logOffset),
     true,
     limit,
@@ -198,8 +201,7 @@ function tailSearch(context: SearchContext, logMassBound: number): Attempt {
   const limit = logOffset - logCutoff + slack;
   // The listed region reaches out to probability τ: on the chi-square scale about X²(obs) + 2 ln(P(obs) / τ).
   const reach = context.pearson + 2 * Math.max(0, context.logObserved - logCutoff);
-  const split = chooseHalfSplit(problem.shares, problem.n, Math.sqrt(Math.max(reach, problem.shares.length - 1)));
-  const prepared = prepare(context, split, (i) => tailCountFilter(problem.n, problem.shares[i], logCutoff - slack), false, limit);
+  const prepared = prepare(context, reach, (i) => tailCountFilter(problem.n, problem.shares[i], logCutoff - slack), false, limit);
   if (prepared.kind === 'empty') throw new Error('the observed outcome fell below the tail cut-off');
   if (prepared.kind === 'over-budget') return prepared;
   context.spent += prepared.work;

@@ -2,12 +2,15 @@
  * Chooses how to split the categories into the two halves of the meet-in-the-middle search.
  *
  * The number of partial vectors a half must list grows like the volume of an ellipsoid in its
- * own count space: V_h(r) ∏ sd_i for h categories with standard deviations sd_i = √(nπ(1 − π))
- * and a radius r set by how extreme the observed outcome is, divided by m! for every run of m
- * equal-share categories (listed once per ordering class). When both halves hold the same
- * shares their lists are identical and built once. The split with the least estimated total is
+ * own count space: the fraction V_h(1) / 2^h of the enclosing box, whose side for a category is
+ * w = 2 r sd (standard deviation sd = √(nπ(1 − π)), radius r set by how extreme the observed
+ * outcome is), capped at the category's window of possible counts. A run of m equal-share
+ * categories is listed once per ordering class, so it contributes the number of multisets,
+ * C(w + m − 1, m), instead of w^m. When both halves hold the same shares their lists are
+ * identical and built once. The split with the least estimated total is
  * taken; every split respecting the runs is tried while there are few, a greedy balance otherwise.
  */
+import { logGamma } from '../special/log-gamma';
 
 export interface HalfSplit {
   /** indices (into the share array) of the first half, in enumeration order */
@@ -21,12 +24,6 @@ export interface HalfSplit {
 }
 
 const EXHAUSTIVE_LIMIT = 20000;
-
-function logFactorialSmall(m: number): number {
-  let sum = 0;
-  for (let i = 2; i <= m; i++) sum += Math.log(i);
-  return sum;
-}
 
 /** ln of the volume of the h-dimensional ball of radius r. */
 function logBallVolume(h: number, logRadius: number): number {
@@ -47,23 +44,29 @@ function runStarts(shares: readonly number[]): number[] {
  * @param shares category shares sorted ascending (equal shares adjacent)
  * @param n total count
  * @param radius how far from expectation the search reaches, on the chi-square scale (√X²)
+ * @param widths number of counts each category can take in the search (its window)
  */
-export function chooseHalfSplit(shares: readonly number[], n: number, radius: number): HalfSplit {
+export function chooseHalfSplit(shares: readonly number[], n: number, radius: number, widths?: readonly number[]): HalfSplit {
   const k = shares.length;
   const starts = runStarts(shares);
   const runs = starts.map((start, r) => ({ start, size: (r + 1 < starts.length ? starts[r + 1] : k) - start }));
   const logSd = shares.map((share) => 0.5 * Math.log(Math.max(n * share * (1 - share), 0.25)));
   const logRadius = Math.log(Math.max(radius, 1));
+  const side = logSd.map((logSdOne, i) =>
+    Math.max(1, Math.min(2 * Math.exp(logRadius + logSdOne), widths ? widths[i] : n + 1)),
+  );
 
   const logWork = (taken: number[]): number => {
     let h = 0;
     let sum = 0;
     runs.forEach((run, r) => {
       const m = taken[r];
+      if (m === 0) return;
       h += m;
-      sum += m * logSd[run.start] - logFactorialSmall(m);
+      const w = side[run.start];
+      sum += logGamma(w + m) - logGamma(w) - logGamma(m + 1); // ln C(w + m − 1, m)
     });
-    return h === 0 ? -Infinity : sum + logBallVolume(h, logRadius);
+    return h === 0 ? -Infinity : sum + logBallVolume(h, 0) - h * Math.LN2;
   };
 
   let options = 1;
