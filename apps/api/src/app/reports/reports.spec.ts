@@ -90,4 +90,18 @@ describe('reports of an analysis', () => {
     // 20 bars and the 2 legend swatches.
     expect(bars.length).toBe(22);
   });
+
+  it('continues tables on new pages for many categories and draws every bar', async () => {
+    // Invented: 60 shelf positions counted in a stock check, against equal shares.
+    const labels = Array.from({ length: 60 }, (_, i) => `shelf ${i + 1}`);
+    const many = analyze({ observed: { labels, counts: labels.map((_, i) => 40 + (i % 7)) }, hypothesis: { kind: 'equal' }, tests: ['pearson'] });
+    const fonts = findPdfFonts(join(__dirname, '../../../../../fonts'));
+    const pdf = await pdfReport({ ...source, result: many }, fonts, { compress: false });
+    const raw = pdf.toString('latin1');
+    expect((raw.match(/\/Type \/Page\b/g) ?? []).length).toBeGreaterThanOrEqual(3);
+    expect(raw.match(/ re\n/g)?.length).toBe(2 * 60 + 2);
+    const text = squeeze(pdfText(pdf));
+    expect(text).toContain(squeeze('shelf 60'));
+    expect(text).toContain(squeeze('What this does not show'));
+  });
 });
