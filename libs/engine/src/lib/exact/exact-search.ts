@@ -59,6 +59,8 @@ const CORE_RELIABLE_P = 1e-5;
 const TAIL_FIRST_LOG_P = Math.log(1e-7);
 /** Mass left out by the tail search, relative to a lower bound of p. */
 const RELATIVE_CUTOFF = 1e-10;
+/** The tail search tightens its cut-off at most this many times. */
+const MAX_TAIL_PASSES = 3;
 /** Skip a search outright when the volume estimate exceeds the remaining budget this many times over. */
 const PRESCREEN_FACTOR = 8;
 
@@ -77,7 +79,9 @@ interface SearchContext {
   progressTo: number;
 }
 
-type Attempt = { kind: 'done'; outcome: ExactSearchOutcome } | { kind: 'over-budget' } | { kind: 'all-extreme' };
+type Attempt = { kind: 'done'; outcome: ExactSearchOutcome } | { kind: 'over-budget' };
+/** The core search also learns when no outcome at all is less extreme than the observed one. */
+type CoreAttempt = Attempt | { kind: 'all-extreme' };
 
 /** Tolerance added to pruning limits so that rounding in the bounds never prunes an outcome the join needs. */
 function pruningSlack(value: number): number {
@@ -161,7 +165,7 @@ function joinProgress(context: SearchContext): ((fraction: number) => void) | un
   return (fraction) => onProgress(progressFrom + (0.6 + 0.4 * fraction) * (progressTo - progressFrom));
 }
 
-function coreSearch(context: SearchContext): Attempt {
+function coreSearch(context: SearchContext): CoreAttempt {
   const { problem, threshold, logOffset } = context;
   const limit = threshold + pruningSlack(threshold);
   const prepared = prepare(
@@ -202,7 +206,8 @@ function tailSearch(context: SearchContext, logMassBound: number): Attempt {
   // The listed region reaches out to probability τ: on the chi-square scale about X²(obs) + 2 ln(P(obs) / τ).
   const reach = context.pearson + 2 * Math.max(0, context.logObserved - logCutoff);
   const prepared = prepare(context, reach, (i) => tailCountFilter(problem.n, problem.shares[i], logCutoff - slack), false, limit);
-  if (prepared.kind === 'empty') throw new Error('the observed outcome fell below the tail cut-off');
+  // Some count of every category has probability ≥ 1/(n + 1), far above the cut-off.
+  if (prepared.kind === 'empty') throw new Error('the tail search found a category with no count above the cut-off');
   if (prepared.kind === 'over-budget') return prepared;
   context.spent += prepared.work;
   const lists = materialise(context, prepared.layouts, prepared.counts, true);
@@ -275,21 +280,20 @@ export function exactSearch(
   }
   context.progressFrom = context.progressTo;
   context.progressTo = 1;
+  // First pass: cut-off from the chi-square approximation of p (never below the proven bound).
   let logMassBound = Math.log(RELATIVE_CUTOFF) + Math.max(lowerBound, Math.min(logApproximateP, 0));
-  for (let pass = 0; pass < 3; pass++) {
+  for (let pass = 1; ; pass++) {
     const tail = tailSearch(context, logMassBound);
     if (tail.kind === 'over-budget') return undefined;
-    if (tail.kind === 'all-extreme') throw new Error('unreachable: the tail search always lists the observed outcome');
     const outcome = tail.outcome;
     visited += outcome.outcomesVisited;
-    // The tail sum is a lower bound of p; accept when the bound on what it left out is small against it.
+    // The tail sum is a lower bound of p; accept once what it left out is small against it.
     const provenLower = Math.max(lowerBound, outcome.logP);
-    if (logMassBound <= Math.log(1e-8) + provenLower || pass === 2) {
+    if (logMassBound <= Math.log(1e-8) + provenLower || pass === MAX_TAIL_PASSES) {
       onProgress?.(1);
       return { ...outcome, outcomesVisited: visited, work: context.spent };
     }
     lowerBound = provenLower;
     logMassBound = Math.log(RELATIVE_CUTOFF) + provenLower;
   }
-  return undefined;
 }
