@@ -8,6 +8,7 @@ import * as createReviewsAndComments from './20261202-0006-create-reviews-and-co
 import * as createApiAndRefreshTokens from './20261202-0007-create-api-and-refresh-tokens';
 import * as createDatasets from './20261202-0020-create-datasets';
 import * as createShares from './20261202-0021-create-shares';
+import * as indexAnalysisHistory from './20261202-0022-index-analysis-history';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -28,6 +29,7 @@ const migrations: ReadonlyArray<readonly [name: string, migration: Migration]> =
   ['20261202-0007-create-api-and-refresh-tokens', createApiAndRefreshTokens],
   ['20261202-0020-create-datasets', createDatasets],
   ['20261202-0021-create-shares', createShares],
+  ['20261202-0022-index-analysis-history', indexAnalysisHistory],
 ];
 
 export const migrationSource: Knex.MigrationSource<Migration> = {

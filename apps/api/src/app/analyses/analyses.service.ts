@@ -193,9 +193,14 @@ const SORT_COLUMNS: Record<string, string> = {
 
 const NULLABLE_SORTS = new Set(['study', 'p']);
 
-/** The history: one page of the analyses the caller may read, sorted and filtered. */
+/**
+ * The history: one page of the analyses the caller may read, sorted and filtered. Two steps: the
+ * count and the page's ids come from the analyses table's listing index alone (the wide rows with
+ * their JSON are never scanned, except for free text), then only that page's rows are read.
+ */
 export async function listAnalyses(db: Knex, caller: User, query: ListAnalysesFilters): Promise<Page<AnalysisSummary>> {
-  const filtered = selectAnalyses(db)
+  const filtered = db('analyses')
+    .whereNull('analyses.deleted_at')
     .modify((builder) => scopeToReader(builder, db, caller))
     .modify((builder) => {
       if (!query.allVersions) builder.where('analyses.is_latest', true);
@@ -216,20 +221,25 @@ export async function listAnalyses(db: Knex, caller: User, query: ListAnalysesFi
       }
     });
   const [{ total }] = await filtered.clone().count({ total: '*' });
-  const rows: AnalysisRow[] = await filtered
+  const ids: number[] = await filtered
     .clone()
-    .select(SUMMARY_COLUMNS)
     .modify((builder) => {
+      if (query.sort === 'study') builder.leftJoin('studies', 'studies.id', 'analyses.study_id');
+      if (query.sort === 'author') builder.join('users', 'users.id', 'analyses.author_id');
       const column = SORT_COLUMNS[query.sort];
       // Rows without a study or a p-value go last either way. (Written out because knex drops the
       // column when asked for nulls-last on SQLite.) Date, author and status are never null, which
-      // keeps the default sort free to walk the created_at index.
+      // keeps the default sort free to walk the listing index.
       if (NULLABLE_SORTS.has(query.sort)) builder.orderByRaw('(?? is null)', [column]);
       builder.orderBy(column, query.order).orderBy('analyses.id', query.order);
     })
     .limit(query.pageSize)
-    .offset((query.page - 1) * query.pageSize);
-  return { items: rows.map(toSummary), total: Number(total), page: query.page, pageSize: query.pageSize };
+    .offset((query.page - 1) * query.pageSize)
+    .pluck('analyses.id');
+  const rows: AnalysisRow[] = ids.length ? await selectAnalyses(db).select(SUMMARY_COLUMNS).whereIn('analyses.id', ids) : [];
+  const byId = new Map(rows.map((row) => [row.id, row]));
+  const items = ids.map((id) => byId.get(id)).filter((row): row is AnalysisRow => row !== undefined);
+  return { items: items.map(toSummary), total: Number(total), page: query.page, pageSize: query.pageSize };
 }
 
 /** Every version of an analysis's series, oldest first. */
