@@ -72,8 +72,15 @@ async function startServer(): Promise<Server> {
   });
 }
 
+interface UploadAnswer {
+  rowCount: number;
+  sizeBytes: number;
+  selectedCounts: unknown;
+  columns: Array<{ distinctValues: number | null }>;
+}
+
 /** Posts a file as multipart/form-data, streamed from disk, with the column choice fields first. */
-async function uploadFile(server: Server, path: string, fields: Record<string, string>): Promise<{ status: number; body: any }> {
+async function uploadFile(server: Server, path: string, fields: Record<string, string>): Promise<{ status: number; body: UploadAnswer }> {
   const boundary = `tallyfit-${Date.now()}`;
   const head =
     Object.entries(fields)
@@ -88,7 +95,7 @@ async function uploadFile(server: Server, path: string, fields: Record<string, s
     path: `/api/v1/studies/${server.studyId}/datasets`,
     headers: { authorization: `Bearer ${server.token}`, 'content-type': `multipart/form-data; boundary=${boundary}`, 'content-length': length },
   });
-  const answer = new Promise<{ status: number; body: any }>((resolve, reject) => {
+  const answer = new Promise<{ status: number; body: UploadAnswer }>((resolve, reject) => {
     call.on('response', (response) => {
       let text = '';
       response.on('data', (chunk: Buffer) => (text += chunk.toString()));
@@ -140,7 +147,7 @@ describe(`a ${big ? '1 GB' : '128 MB'} upload`, () => {
       expect(response.body.sizeBytes).toBe(size);
       expect(response.body.selectedCounts).toMatchObject({ labels: VARIANTS, counts: expected.counts, total: expected.rows });
       // The visitor and session columns have too many different values to be offered as categories.
-      expect(response.body.columns.map((column: { distinctValues: number | null }) => column.distinctValues)).toEqual([null, 4, null]);
+      expect(response.body.columns.map((column) => column.distinctValues)).toEqual([null, 4, null]);
       const growth = server.peak - baseline;
       process.stdout.write(`upload of ${(size / 1024 ** 2).toFixed(0)} MB: the server's resident memory grew by ${(growth / 1024 ** 2).toFixed(1)} MB at most\n`);
       expect(growth).toBeLessThan(Math.min(size / 2, 64 * 1024 ** 2));
