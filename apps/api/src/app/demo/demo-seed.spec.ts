@@ -31,6 +31,9 @@ describe('demo seed', () => {
     ]);
     const analyses = await db('analyses').where({ study_id: study.id }).pluck('title');
     expect(analyses.sort()).toEqual(DEMO_ANALYSES.map((demo) => demo.title).sort());
+    const [dataset] = await db('datasets').where({ study_id: study.id });
+    expect(dataset.file_name).toBe('support-tickets.csv');
+    expect(JSON.parse(dataset.selected_json)).toMatchObject({ labels: ['Fri', 'Mon', 'Thu', 'Tue', 'Wed'], counts: [58, 88, 69, 71, 64], total: 350 });
     // A second start seeds nothing more.
     await seedDemo(db, dataDir, 'demo password here');
     expect(await db('studies').count({ n: '*' })).toEqual([{ n: 1 }]);

@@ -7,6 +7,7 @@ import { createAnalysis } from '../analyses/analyses.service';
 import { countUsers, createUser } from '../auth/users.service';
 import { inProcessEngine } from '../engine/engine-runner';
 import { addStudyMember, createStudy } from '../studies/studies.service';
+import { seedDemoDataset } from './demo-dataset';
 import { DEMO_ANALYSES, DEMO_STUDY } from './demo-scenarios';
 
 export interface DemoSignIn {
@@ -50,6 +51,7 @@ export async function seedDemo(db: Knex, dataDir: string, fixedPassword?: string
     // A one-off seed before the server listens: running the few small demo specs in-process is fine.
     const engine = inProcessEngine();
     for (const demo of DEMO_ANALYSES) await createAnalysis(trx, engine, analyst, { ...demo, studyId: study.id });
+    await seedDemoDataset(trx, dataDir, analyst, study.id);
   });
   writeFileSync(file, JSON.stringify(signIns, null, 2) + '\n', { mode: 0o600 });
   return signIns;
