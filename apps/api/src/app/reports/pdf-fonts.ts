@@ -1,5 +1,5 @@
 import { existsSync } from 'node:fs';
-import { dirname, join } from 'node:path';
+import { join } from 'node:path';
 
 /** A script the shipped Roboto files are split into; each has its own file per weight. */
 type Script = 'latin' | 'latin-ext' | 'greek';
@@ -13,23 +13,22 @@ export interface PdfFonts {
 }
 
 /**
- * Finds Roboto for PDF reports: the WOFF files beside the console's fonts (fonts/roboto), else in
- * the @fontsource/roboto package the shipped fonts were copied from. WOFF rather than the console's
+ * Finds Roboto for PDF reports: the WOFF files shipped beside the console's fonts (fonts/roboto).
+ * WOFF rather than the console's
  * WOFF2: fontkit 2.0.4 (pdfkit's font reader) fails to subset some WOFF2 glyphs, the colon among
  * them, while it subsets the same glyphs from WOFF. Greek is needed for χ² and α.
  */
 export function findPdfFonts(fontsDir: string): PdfFonts {
-  const folders = [join(fontsDir, 'roboto'), fontsourceFolder()].filter((folder): folder is string => !!folder);
+  const folder = join(fontsDir, 'roboto');
   const files = new Map<string, string>();
   for (const script of ['latin', 'latin-ext', 'greek'] as const) {
     for (const weight of [400, 700] as const) {
       const fileName = `roboto-${script}-${weight}-normal.woff`;
-      const folder = folders.find((candidate) => existsSync(join(candidate, fileName)));
-      if (folder) files.set(`roboto-${script}-${weight}`, join(folder, fileName));
+      if (existsSync(join(folder, fileName))) files.set(`roboto-${script}-${weight}`, join(folder, fileName));
     }
   }
   if (!files.has('roboto-latin-400')) {
-    throw new Error(`PDF reports need Roboto WOFF files (roboto-latin-400-normal.woff and its siblings) in ${join(fontsDir, 'roboto')}`);
+    throw new Error(`PDF reports need Roboto WOFF files (roboto-latin-400-normal.woff and its siblings) in ${folder}`);
   }
   return {
     files,
@@ -40,14 +39,6 @@ export function findPdfFonts(fontsDir: string): PdfFonts {
       return files.has(regular) ? regular : undefined;
     },
   };
-}
-
-function fontsourceFolder(): string | undefined {
-  try {
-    return join(dirname(require.resolve('@fontsource/roboto/package.json')), 'files');
-  } catch {
-    return undefined;
-  }
 }
 
 /** Which shipped subset draws a character (the subsets' Unicode ranges, simplified to whole blocks). */
