@@ -42,6 +42,12 @@ export class AppShell {
   );
   protected readonly inAdmin = computed(() => this.url().startsWith('/admin'));
 
+  /** Moves focus into the page itself; a plain `#main` link would be taken by the router as a navigation. */
+  protected skipToContent(event: Event): void {
+    event.preventDefault();
+    document.getElementById('main')?.focus();
+  }
+
   protected signOut(): void {
     this.session.signOut({ revoke: true });
     void this.router.navigate(['/sign-in']);
