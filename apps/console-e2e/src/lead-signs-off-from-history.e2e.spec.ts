@@ -1,5 +1,6 @@
 import type { Browser, Page } from 'playwright-core';
 import { launchBrowser, screenshot } from './support/browser';
+import { settle } from './support/settle';
 import { signInAs } from './support/console-sign-in';
 import { DemoApi } from './support/demo-api';
 import { startTallyfit, type RunningServer } from './support/tallyfit-server';
@@ -43,6 +44,7 @@ describe('a lead finds an analysis waiting for review in History and signs it of
     await page.getByText('1 analysis', { exact: true }).waitFor();
     await expect(rows.count()).resolves.toBe(1);
     await expect(rows.first().textContent()).resolves.toContain(TITLE);
+    await settle(page);
     await screenshot(page, 'history-filtered-1280');
   });
 
@@ -61,6 +63,7 @@ describe('a lead finds an analysis waiting for review in History and signs it of
     await dialog.getByText('Ana Analyst submitted it for review').waitFor();
     await dialog.getByText('Ready for a look.').waitFor();
     await dialog.getByLabel('Note for the author').fill('Clear write-up; signed off.');
+    await settle(page);
     await screenshot(page, 'history-review-dialog-1280');
     await dialog.getByRole('button', { name: 'Sign off' }).click();
     await dialog.getByText('Lee Lead signed it off').waitFor();

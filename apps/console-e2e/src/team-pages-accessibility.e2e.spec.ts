@@ -1,6 +1,7 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { seriousAxeViolations } from './support/axe-check';
 import { launchBrowser, screenshot } from './support/browser';
+import { settle } from './support/settle';
 import { signInAs } from './support/console-sign-in';
 import { DemoApi } from './support/demo-api';
 import { focusedName, tabTo } from './support/keyboard';
@@ -72,6 +73,7 @@ describe('the team pages pass an accessibility check and hold their layout', () 
     it('sign-in', async () => {
       await page.goto(`${server.url}/sign-in`);
       await page.getByRole('heading', { name: 'Sign in to Tallyfit' }).waitFor();
+      await settle(page);
       await screenshot(page, `a11y-sign-in-${viewport.name}`);
       await expect(seriousAxeViolations(page)).resolves.toEqual([]);
       await expect(pageFitsWidth(page)).resolves.toBe(true);
@@ -82,6 +84,7 @@ describe('the team pages pass an accessibility check and hold their layout', () 
       await page.goto(`${server.url}${path(ids)}`);
       await ready(page);
       await page.waitForLoadState('networkidle');
+      await settle(page);
       await screenshot(page, `a11y-${name}-${viewport.name}`);
       await expect(seriousAxeViolations(page)).resolves.toEqual([]);
       await expect(pageFitsWidth(page)).resolves.toBe(true);
@@ -92,6 +95,7 @@ describe('the team pages pass an accessibility check and hold their layout', () 
       await page.locator('table tbody tr').first().waitFor();
       await page.locator('table tbody button').first().click();
       await page.getByRole('dialog').getByText('Counts are from the week of 16 November.').waitFor();
+      await settle(page);
       await screenshot(page, `a11y-review-dialog-${viewport.name}`);
       await expect(seriousAxeViolations(page)).resolves.toEqual([]);
       await page.keyboard.press('Escape');
@@ -103,10 +107,29 @@ describe('the team pages pass an accessibility check and hold their layout', () 
       const trigger = viewport.width < 960 ? page.getByRole('button', { name: 'Open the list of places' }) : page.getByRole('button', { name: /^Admin/ });
       await trigger.click();
       await page.getByRole('menuitem', { name: /Audit trail/ }).waitFor();
+      await settle(page);
       await screenshot(page, `a11y-menu-${viewport.name}`);
       await expect(seriousAxeViolations(page)).resolves.toEqual([]);
       await page.keyboard.press('Escape');
     });
+  });
+
+  it('folds the history’s detailed filters away on a phone and unfolds them on request', async () => {
+    const context = await browser.newContext({ viewport: { width: 390, height: 844 }, bypassCSP: true });
+    const page = await context.newPage();
+    try {
+      await signInAs(page, server.url, 'lead', '/history');
+      await page.locator('table tbody tr').first().waitFor();
+      await expect(page.getByLabel('Run by').isVisible()).resolves.toBe(false);
+      await page.getByRole('button', { name: 'More filters' }).click();
+      await page.getByLabel('Run by').waitFor();
+      await settle(page);
+      await screenshot(page, 'a11y-history-filters-open-390');
+      await expect(seriousAxeViolations(page)).resolves.toEqual([]);
+      await expect(pageFitsWidth(page)).resolves.toBe(true);
+    } finally {
+      await context.close();
+    }
   });
 
   describe('by keyboard alone', () => {
@@ -159,6 +182,7 @@ describe('the team pages pass an accessibility check and hold their layout', () 
       await page.keyboard.press('Enter');
       const dialog = page.getByRole('dialog');
       await dialog.getByRole('button', { name: 'Sign off' }).waitFor();
+      await settle(page);
       await screenshot(page, 'keyboard-review-dialog-1280');
       await page.keyboard.press('Escape');
       await dialog.waitFor({ state: 'detached' });

@@ -1,4 +1,5 @@
 import { LiveAnnouncer } from '@angular/cdk/a11y';
+import { BreakpointObserver } from '@angular/cdk/layout';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
@@ -137,6 +138,15 @@ export class HistoryPage {
   protected readonly dateOf = dateOf;
 
   protected readonly search = new FormControl('', { nonNullable: true });
+  /** On a phone the detailed filters fold away behind one button, so the list is in sight. */
+  protected readonly narrow = toSignal(
+    inject(BreakpointObserver)
+      .observe('(max-width: 599.98px)')
+      .pipe(map((state) => state.matches)),
+    { initialValue: false },
+  );
+  protected readonly filtersOpen = signal(false);
+  protected readonly showDetailedFilters = computed(() => !this.narrow() || this.filtersOpen());
   protected readonly rowAction = (analysis: AnalysisSummary): RowAction =>
     this.canReview() && analysis.status === 'in_review' ? 'review' : 'discuss';
 
