@@ -26,10 +26,10 @@ const PAGES: PageUnderTest[] = [
   { name: 'result', path: ({ analysisId }) => `/analyses/${analysisId}`, ready: (page) => page.locator('main h1').first().waitFor() },
   { name: 'new-analysis', path: ({ studyId }) => `/analyses/new?study=${studyId}`, ready: (page) => page.locator('main h1').first().waitFor() },
   { name: 'planner', path: () => '/planner', ready: (page) => page.locator('main h1').first().waitFor() },
-  { name: 'tokens', path: () => '/tokens', ready: (page) => page.getByRole('heading', { name: 'Your tokens' }).waitFor() },
+  { name: 'tokens', path: () => '/tokens', ready: (page) => page.getByText('nightly traffic-split check').waitFor() },
   { name: 'admin-people', path: () => '/admin/people', ready: (page) => page.locator('main').getByText('Ada Admin').first().waitFor() },
   { name: 'admin-audit', path: () => '/admin/audit', ready: (page) => page.locator('table.events tbody tr').first().waitFor() },
-  { name: 'admin-outbox', path: () => '/admin/outbox', ready: (page) => page.getByRole('heading', { name: 'Mail outbox' }).waitFor() },
+  { name: 'admin-outbox', path: () => '/admin/outbox', ready: (page) => page.locator('mat-expansion-panel').first().waitFor() },
 ];
 
 /** True when nothing is wider than the window: wide tables must scroll inside their own box. */
@@ -50,6 +50,10 @@ describe('the team pages pass an accessibility check and hold their layout', () 
     ids.analysisId = analyses.items[0].id;
     await analyst.expectOk('POST', `/analyses/${ids.analysisId}/submit`, {});
     await analyst.expectOk('POST', `/analyses/${ids.analysisId}/comments`, { body: 'Counts are from the week of 16 November.' });
+    // Something in the outbox and in the token list, so those pages are checked with content.
+    await analyst.expectOk('POST', `/analyses/${ids.analysisId}/shares`, { to: ['pat@example.org'], message: 'For Monday.' });
+    const admin = await DemoApi.signIn(server.url, 'admin');
+    await admin.expectOk('POST', '/tokens', { name: 'nightly traffic-split check' });
   });
 
   afterAll(async () => {
