@@ -26,7 +26,7 @@ const PAGES: PageUnderTest[] = [
   { name: 'result', path: ({ analysisId }) => `/analyses/${analysisId}`, ready: (page) => page.locator('main h1').first().waitFor() },
   { name: 'new-analysis', path: ({ studyId }) => `/analyses/new?study=${studyId}`, ready: (page) => page.locator('main h1').first().waitFor() },
   { name: 'planner', path: () => '/planner', ready: (page) => page.locator('main h1').first().waitFor() },
-  { name: 'tokens', path: () => '/tokens', ready: (page) => page.getByText('nightly traffic-split check').waitFor() },
+  { name: 'tokens', path: () => '/tokens', ready: (page) => page.getByRole('cell', { name: 'nightly traffic-split check', exact: true }).waitFor() },
   { name: 'admin-people', path: () => '/admin/people', ready: (page) => page.locator('main').getByText('Ada Admin').first().waitFor() },
   { name: 'admin-audit', path: () => '/admin/audit', ready: (page) => page.locator('table.events tbody tr').first().waitFor() },
   { name: 'admin-outbox', path: () => '/admin/outbox', ready: (page) => page.locator('mat-expansion-panel').first().waitFor() },
@@ -101,6 +101,42 @@ describe('the team pages pass an accessibility check and hold their layout', () 
       await page.getByRole('dialog').getByText('Counts are from the week of 16 November.').waitFor();
       await settle(page);
       await screenshot(page, `a11y-review-dialog-${viewport.name}`);
+      await expect(seriousAxeViolations(page)).resolves.toEqual([]);
+      await page.keyboard.press('Escape');
+    });
+
+    it('study members and the add-member dialog', async () => {
+      await page.goto(`${server.url}/studies/${ids.studyId}`);
+      await page.getByRole('tab', { name: /Members/ }).click();
+      await page.locator('main').getByText('Vic Viewer', { exact: true }).waitFor();
+      await settle(page);
+      await screenshot(page, `a11y-study-members-${viewport.name}`);
+      await expect(seriousAxeViolations(page)).resolves.toEqual([]);
+      await expect(pageFitsWidth(page)).resolves.toBe(true);
+      await page.getByRole('button', { name: 'Add a member' }).click();
+      await page.getByRole('dialog').getByRole('heading', { name: 'Add a member' }).waitFor();
+      await settle(page);
+      await screenshot(page, `a11y-add-member-${viewport.name}`);
+      await expect(seriousAxeViolations(page)).resolves.toEqual([]);
+      await page.keyboard.press('Escape');
+    });
+
+    it('new study dialog', async () => {
+      await page.goto(`${server.url}/studies`);
+      await page.getByRole('button', { name: 'New study' }).click();
+      await page.getByRole('dialog').getByLabel('Name').waitFor();
+      await settle(page);
+      await screenshot(page, `a11y-new-study-${viewport.name}`);
+      await expect(seriousAxeViolations(page)).resolves.toEqual([]);
+      await page.keyboard.press('Escape');
+    });
+
+    it('add person dialog', async () => {
+      await page.goto(`${server.url}/admin/people`);
+      await page.getByRole('button', { name: 'Add a person' }).click();
+      await page.getByRole('dialog').getByLabel('First password').waitFor();
+      await settle(page);
+      await screenshot(page, `a11y-add-person-${viewport.name}`);
       await expect(seriousAxeViolations(page)).resolves.toEqual([]);
       await page.keyboard.press('Escape');
     });

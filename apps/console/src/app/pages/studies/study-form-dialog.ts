@@ -22,6 +22,7 @@ export interface StudyFormData {
   changeDetection: ChangeDetectionStrategy.OnPush,
   styles: `
     form { display: flex; flex-direction: column; gap: 8px; min-width: min(440px, 100%); }
+    mat-form-field { width: 100%; }
     .error { color: var(--mat-sys-error); margin: 0; }
   `,
 })

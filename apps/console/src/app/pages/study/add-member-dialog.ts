@@ -27,6 +27,7 @@ export interface AddMemberData {
   changeDetection: ChangeDetectionStrategy.OnPush,
   styles: `
     form { display: flex; flex-direction: column; gap: 8px; min-width: min(400px, 100%); }
+    mat-form-field { width: 100%; }
     .error { color: var(--mat-sys-error); margin: 0; }
   `,
 })

@@ -22,6 +22,7 @@ const MIN_PASSWORD_LENGTH = 10;
   changeDetection: ChangeDetectionStrategy.OnPush,
   styles: `
     form { display: flex; flex-direction: column; gap: 4px; min-width: min(420px, 100%); }
+    mat-form-field { width: 100%; }
     .error { color: var(--mat-sys-error); margin: 0; }
   `,
 })
