@@ -33,6 +33,7 @@ import {
   dayOf,
   DEFAULT_VIEW,
   PAGE_SIZES,
+  SORT_CHOICES,
   urlFromView,
   viewFromUrl,
   type HistorySort,
@@ -136,6 +137,9 @@ export class HistoryPage {
   protected readonly statusWords = ANALYSIS_STATUS_WORDS;
   protected readonly pageSizes = PAGE_SIZES;
   protected readonly dateOf = dateOf;
+  protected readonly sortChoices = SORT_CHOICES;
+  protected readonly sortKey = computed(() => `${this.view().sort}-${this.view().order}`);
+  protected readonly sortKeyListed = computed(() => SORT_CHOICES.some((choice) => choice.key === this.sortKey()));
 
   protected readonly search = new FormControl('', { nonNullable: true });
   /** On a phone the detailed filters fold away behind one button, so the list is in sight. */
@@ -181,6 +185,11 @@ export class HistoryPage {
   protected onSort(sort: Sort): void {
     const column = sort.active as HistorySort;
     this.go({ ...this.view(), sort: column, order: sort.direction === 'asc' ? 'asc' : 'desc', page: 1 });
+  }
+
+  protected onSortChoice(key: string): void {
+    const choice = SORT_CHOICES.find((candidate) => candidate.key === key);
+    if (choice) this.go({ ...this.view(), sort: choice.sort, order: choice.order, page: 1 });
   }
 
   protected onPage(event: PageEvent): void {

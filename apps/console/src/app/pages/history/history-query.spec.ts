@@ -1,4 +1,4 @@
-import { activeFilterCount, apiQueryFromView, dateOf, dayOf, DEFAULT_VIEW, urlFromView, viewFromUrl } from './history-query';
+import { activeFilterCount, apiQueryFromView, dateOf, dayOf, DEFAULT_VIEW, SORT_CHOICES, urlFromView, viewFromUrl } from './history-query';
 
 describe('the history view in the URL', () => {
   it('reads every filter, sort and page from the query string', () => {
@@ -66,5 +66,13 @@ describe('the history view in the URL', () => {
   it('counts the filters in use', () => {
     expect(activeFilterCount(DEFAULT_VIEW)).toBe(0);
     expect(activeFilterCount({ ...DEFAULT_VIEW, page: 4, test: 'g', q: 'x' })).toBe(2);
+  });
+});
+
+describe('the phone’s sort choices', () => {
+  it('are each a sort the API accepts, once', () => {
+    const keys = SORT_CHOICES.map((choice) => choice.key);
+    expect(new Set(keys).size).toBe(keys.length);
+    for (const choice of SORT_CHOICES) expect(viewFromUrl({ sort: choice.sort, order: choice.order })).toMatchObject({ sort: choice.sort, order: choice.order });
   });
 });

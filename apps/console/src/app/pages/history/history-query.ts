@@ -122,3 +122,13 @@ export function dayOf(date: Date): string {
 export function dateOf(day: string | null): Date | null {
   return day ? localDayStart(day) : null;
 }
+
+/** Sort choices as one list, for the phone layout where column headers are not shown. */
+export const SORT_CHOICES: ReadonlyArray<{ key: string; words: string; sort: HistorySort; order: 'asc' | 'desc' }> = [
+  { key: 'date-desc', words: 'Newest first', sort: 'date', order: 'desc' },
+  { key: 'date-asc', words: 'Oldest first', sort: 'date', order: 'asc' },
+  { key: 'p-asc', words: 'Smallest p first', sort: 'p', order: 'asc' },
+  { key: 'study-asc', words: 'Study, A to Z', sort: 'study', order: 'asc' },
+  { key: 'author-asc', words: 'Run by, A to Z', sort: 'author', order: 'asc' },
+  { key: 'status-asc', words: 'Review state', sort: 'status', order: 'asc' },
+];
