@@ -9,7 +9,9 @@ describe('formatP', () => {
     [0.001, '= .001'],
     [0.00099, '< .001'],
     [1e-300, '< .001'],
-    [1, '= 1.000'],
+    [0.9994, '= .999'],
+    [0.9996, '> .999'],
+    [1, '> .999'],
   ])('writes %p as "%s"', (p, text) => expect(formatP(p)).toBe(text));
 
   it('writes a dash for a value that is not a number', () => expect(formatP(Number.NaN)).toBe('—'));

@@ -5,7 +5,10 @@
 export function formatP(p: number): string {
   if (!Number.isFinite(p)) return '—';
   if (p < 0.001) return '< .001';
-  return '= ' + p.toFixed(3).replace(/^0\./, '.');
+  const rounded = p.toFixed(3);
+  // As in the engine's write-up, so the page and the report say the same: never "p = 1.000".
+  if (rounded === '1.000') return '> .999';
+  return '= ' + rounded.replace(/^0\./, '.');
 }
 
 /** A test statistic with two decimals. */

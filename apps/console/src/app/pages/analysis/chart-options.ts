@@ -11,6 +11,9 @@ import type { ChartColours } from '../../shared/charts/theme-colours';
 export const RESIDUAL_GUIDE = 1.96;
 
 
+/** Bars shorter than this share leave no room for a label inside. */
+const SHORT_BAR = 0.06;
+
 const percent = (value: number): string => `${(value * 100).toFixed(1)}%`;
 
 /** Observed share per category (bars) with its interval (whiskers), and the expected share (diamonds). */
@@ -22,13 +25,11 @@ export function sharesChartOptions(rows: readonly CategoryRow[], intervalLabel: 
     textStyle: { fontFamily: 'Roboto, system-ui, sans-serif', color: colours.text },
     animation: false,
     legend: { top: 0, textStyle: { color: colours.text } },
-    grid: { left: 8, right: 16, top: 40, bottom: 8, containLabel: true },
+    grid: { left: 8, right: 16, top: 56, bottom: 8, containLabel: true },
     tooltip: { trigger: 'axis', valueFormatter: (value: number) => percent(value) },
     xAxis: { type: 'category', data: labels, axisLabel: { color: colours.text, interval: 0, rotate: labels.length > 6 ? 30 : 0 } },
     yAxis: {
       type: 'value',
-      name: 'Share of observations',
-      nameTextStyle: { color: colours.text, align: 'left' },
       axisLabel: { color: colours.text, formatter: (value: number) => `${Math.round(value * 100)}%` },
       splitLine: { lineStyle: { color: colours.grid } },
     },
@@ -38,7 +39,13 @@ export function sharesChartOptions(rows: readonly CategoryRow[], intervalLabel: 
         type: 'bar',
         data: rows.map((row) => row.share),
         itemStyle: { color: colours.primary, decal: { symbol: 'rect', dashArrayX: [1, 0], dashArrayY: [3, 5], rotation: -Math.PI / 4 } },
-        label: { show: true, position: 'insideBottom', color: '#fff', formatter: (item: { value: number }) => percent(item.value) },
+        // Short bars cannot hold their label; their value is in the table and the tooltip.
+        label: {
+          show: true,
+          position: 'insideBottom',
+          color: '#fff',
+          formatter: (item: { value: number }) => (item.value >= SHORT_BAR ? percent(item.value) : ''),
+        },
         barMaxWidth: 56,
       },
       {
@@ -93,7 +100,7 @@ export function residualsChartOptions(rows: readonly CategoryRow[], colours: Cha
     backgroundColor: colours.surface,
     textStyle: { fontFamily: 'Roboto, system-ui, sans-serif', color: colours.text },
     animation: false,
-    grid: { left: 8, right: 48, top: 32, bottom: 8, containLabel: true },
+    grid: { left: 8, right: 48, top: 32, bottom: 36, containLabel: true },
     tooltip: { trigger: 'axis', valueFormatter: (value: number) => value.toFixed(2) },
     xAxis: {
       type: 'value',
@@ -130,7 +137,8 @@ export function residualsChartOptions(rows: readonly CategoryRow[], colours: Cha
           symbol: 'none',
           silent: true,
           lineStyle: { color: colours.text, type: 'dashed' },
-          label: { color: colours.text, formatter: (item: { value: number }) => signed(item.value) },
+          // Labels at the top end of the guide lines (the category axis is inverted), clear of the axis labels below.
+          label: { position: 'start', color: colours.text, formatter: (item: { value: number }) => signed(item.value) },
           data: [{ xAxis: -RESIDUAL_GUIDE }, { xAxis: RESIDUAL_GUIDE }],
         },
       },

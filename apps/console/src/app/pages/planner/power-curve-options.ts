@@ -40,8 +40,8 @@ export function powerCurveOptions(points: readonly PowerPoint[], mark: number | 
           silent: true,
           lineStyle: { color: colours.text, type: 'dashed' },
           data: [
-            { yAxis: 0.8, label: { formatter: 'power 0.8', color: colours.text } },
-            ...(mark !== null ? [{ xAxis: mark, label: { formatter: `n = ${mark}`, color: colours.text } }] : []),
+            { yAxis: 0.8, label: { formatter: 'power 0.8', position: 'insideEndTop', color: colours.text } },
+            ...(mark !== null ? [{ xAxis: mark, label: { formatter: `n = ${mark}`, position: 'end', color: colours.text } }] : []),
           ],
         },
       },

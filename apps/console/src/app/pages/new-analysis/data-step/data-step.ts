@@ -1,10 +1,13 @@
+import { BreakpointObserver } from '@angular/cdk/layout';
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, input, model, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, model, output, signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { Study } from '@tallyfit/contracts';
+import { map } from 'rxjs';
 import { totalOf, type DataChoice, type DataSource } from './data-choice';
 import { DatasetUpload, type DatasetCounts } from './dataset-upload';
 import { parsePastedCounts, type ParsedCounts } from './pasted-counts';
@@ -24,6 +27,10 @@ export class DataStep {
   readonly studyId = model<number | null>(null);
   readonly dataChange = output<DataChoice | null>();
 
+  /** On a phone the three sources stack instead of wrapping. */
+  protected readonly narrow = toSignal(inject(BreakpointObserver).observe('(max-width: 520px)').pipe(map((state) => state.matches)), {
+    initialValue: false,
+  });
   protected readonly total = totalOf;
   protected readonly source = signal<DataSource>('type');
   protected readonly pasted = signal('');
