@@ -5,6 +5,8 @@
  * "mass of the bins wholly below x" plus an exact scan of the one bin containing x — O(1)
  * expected work per query, replacing a full sort followed by a merge.
  */
+import { sortByKey } from './sort-by-key';
+
 export class BinnedBucket {
   private stat: Float64Array;
   private weight: Float64Array;
@@ -58,11 +60,29 @@ export class BinnedBucket {
       this.stat[slot] = stat[e];
       this.weight[slot] = weight[e];
     }
+    // Sort each bin and merge equal statistics (lattice-valued statistics such as Pearson's with
+    // equal expected counts tie massively), so a query scans few, ordered entries.
+    const keys = this.stat;
+    const weights = this.weight;
+    let write = 0;
     let mass = 0;
     for (let b = 0; b < bins; b++) {
+      const from = binStart[b];
+      const to = binStart[b + 1];
+      if (to - from > 1) sortByKey(keys, weights, from, to);
+      binStart[b] = write;
       this.massBelowBin[b] = mass;
-      for (let e = binStart[b]; e < binStart[b + 1]; e++) mass += this.weight[e];
+      for (let e = from; e < to; e++) {
+        mass += weights[e];
+        if (write > binStart[b] && keys[write - 1] === keys[e]) weights[write - 1] += weights[e];
+        else {
+          keys[write] = keys[e];
+          weights[write] = weights[e];
+          write++;
+        }
+      }
     }
+    binStart[bins] = write;
     this.massBelowBin[bins] = mass;
     this.total = mass;
     this.min = min;
@@ -79,7 +99,7 @@ export class BinnedBucket {
     if (bin >= this.bins) bin = this.bins - 1;
     let mass = this.massBelowBin[bin];
     const end = this.binStart[bin + 1];
-    for (let e = this.binStart[bin]; e < end; e++) if (this.stat[e] < x) mass += this.weight[e];
+    for (let e = this.binStart[bin]; e < end && this.stat[e] < x; e++) mass += this.weight[e];
     return mass;
   }
 }
