@@ -16,6 +16,15 @@ const nx = (...args) =>
 const failures = [];
 if (nx('run-many', '-t', 'lint', 'typecheck', 'test', '--parallel=2') !== 0) failures.push('lint, type checks or unit tests');
 
+// The API suites again on PostgreSQL, when a server is offered (.ci/run starts one): the same
+// migrations and queries must hold on both databases.
+if (process.env.TALLYFIT_TEST_POSTGRES_URL) {
+  const pgReport = 'dist/test-reports/api-postgres.json';
+  if (nx('run', 'api:test', '--skip-nx-cache', `--outputFile=${pgReport}`) !== 0) failures.push('API tests on PostgreSQL');
+} else {
+  console.log('\nAPI tests on PostgreSQL not run: set TALLYFIT_TEST_POSTGRES_URL to a server URL to run them.');
+}
+
 const chromium = ensureChromium();
 if (!chromium.ok) {
   console.error(chromium.message);

@@ -10,6 +10,7 @@ import { createApp, type TallyfitApp } from '../app/create-app';
 import { migrateToLatest, openDatabase } from '../app/database';
 import { createUser } from '../app/auth/users.service';
 import { inProcessEngine, type EngineRunner } from '../app/engine/engine-runner';
+import { createTestDatabaseUrl } from './test-database';
 import { startMailService, type MailService } from '../app/mail/mail-service';
 
 export const TEST_PASSWORD = 'correct horse battery staple';
@@ -62,7 +63,9 @@ export interface TestAppOptions {
 /** A fresh app on a fresh, migrated database in its own temporary folder, with one person per role. */
 export async function createTestApp(options: TestAppOptions = {}): Promise<TestContext> {
   const dataDir = mkdtempSync(join(tmpdir(), 'tallyfit-api-test-'));
+  const database = await createTestDatabaseUrl();
   const config = loadConfig({
+    ...(database.url ? { DATABASE_URL: database.url } : {}),
     TALLYFIT_DATA_DIR: dataDir,
     JWT_SECRET: 'test-secret',
     TALLYFIT_CONSOLE_DIR: join(dataDir, 'none'),
@@ -105,6 +108,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestC
       await engine.close();
       await mail.stop();
       await db.destroy();
+      await database.drop();
       rmSync(dataDir, { recursive: true, force: true });
     },
   };

@@ -1,5 +1,6 @@
 import { ENGINE_VERSION } from '@tallyfit/engine';
 import { createTestApp, rowCounts, type TestContext } from '../../testing/test-app';
+import { refuseAuditWrites } from '../../testing/refuse-audit-writes';
 
 // McDonald, Handbook of Biological Statistics, 3rd ed. (2014), chi-square goodness-of-fit:
 // 1752 vs 1895 under 1:1 gives X² = 5.6071, 1 df, p = 0.0179.
@@ -118,16 +119,16 @@ describe('analysis lifecycle: studies, edits, re-runs, deletion', () => {
   it('stores nothing when the audit write fails after the analysis row was inserted', async () => {
     const tables = ['analyses', 'audit_events'];
     const before = await rowCounts(ctx.db, tables);
-    await ctx.db.raw(`create trigger refuse_analysis_audit before insert on audit_events
-      when new.entity_type = 'analysis' begin select raise(abort, 'refused for the test'); end`);
+    const allowAuditWrites = await refuseAuditWrites(ctx.db, "new.entity_type = 'analysis'");
     try {
       expect((await create({ title: 'Half written', spec: seedlings, studyId })).status).toBe(500);
       const existing = (await ctx.db('analyses').where({ is_latest: true }).whereNull('deleted_at').first('id')).id;
       expect((await ctx.as('analyst').post(`/analyses/${existing}/rerun`, {})).status).toBe(500);
     } finally {
-      await ctx.db.raw('drop trigger refuse_analysis_audit');
+      await allowAuditWrites();
     }
     expect(await rowCounts(ctx.db, tables)).toEqual(before);
-    expect(await ctx.db('analyses').where({ is_latest: false }).whereNull('deleted_at').count({ n: '*' })).toEqual([{ n: 2 }]);
+    const [{ n }] = await ctx.db('analyses').where({ is_latest: false }).whereNull('deleted_at').count({ n: '*' });
+    expect(Number(n)).toBe(2);
   });
 });

@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { createTestApp, rowCounts, TEST_PASSWORD, type TestContext } from '../../testing/test-app';
+import { refuseAuditWrites } from '../../testing/refuse-audit-writes';
 
 describe('sessions: refresh, sign-out, password change, rate limit', () => {
   let ctx: TestContext;
@@ -79,12 +80,11 @@ describe('sessions: refresh, sign-out, password change, rate limit', () => {
 
   it('stores no refresh token when the sign-in audit write fails', async () => {
     const before = await rowCounts(ctx.db, ['refresh_tokens', 'audit_events']);
-    await ctx.db.raw(`create trigger refuse_sign_in_audit before insert on audit_events
-      when new.action = 'sign-in' begin select raise(abort, 'refused for the test'); end`);
+    const allowAuditWrites = await refuseAuditWrites(ctx.db, "new.action = 'sign-in'");
     try {
       expect((await login('lead@test.local')).status).toBe(500);
     } finally {
-      await ctx.db.raw('drop trigger refuse_sign_in_audit');
+      await allowAuditWrites();
     }
     expect(await rowCounts(ctx.db, ['refresh_tokens', 'audit_events'])).toEqual(before);
   });

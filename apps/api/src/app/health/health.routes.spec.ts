@@ -13,7 +13,7 @@ describe('GET /api/v1/health', () => {
     expect(response.status).toBe(200);
     expect(response.body).toEqual({
       status: 'ok',
-      database: { reachable: true, client: 'better-sqlite3' },
+      database: { reachable: true, client: process.env['TALLYFIT_TEST_POSTGRES_URL'] ? 'pg' : 'better-sqlite3' },
       migrations: { current: true, pending: [] },
       engineVersion: ENGINE_VERSION,
     });

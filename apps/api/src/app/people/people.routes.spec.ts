@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { createTestApp, rowCounts, type TestContext } from '../../testing/test-app';
+import { refuseAuditWrites } from '../../testing/refuse-audit-writes';
 
 describe('people (admins)', () => {
   let ctx: TestContext;
@@ -67,12 +68,11 @@ describe('people (admins)', () => {
 
   it('stores no person when the audit write fails', async () => {
     const before = await rowCounts(ctx.db, ['users', 'audit_events']);
-    await ctx.db.raw(`create trigger refuse_user_audit before insert on audit_events
-      when new.entity_type = 'user' begin select raise(abort, 'refused for the test'); end`);
+    const allowAuditWrites = await refuseAuditWrites(ctx.db, "new.entity_type = 'user'");
     try {
       expect((await ctx.as('admin').post('/people', { ...newPerson, email: 'half@test.local' })).status).toBe(500);
     } finally {
-      await ctx.db.raw('drop trigger refuse_user_audit');
+      await allowAuditWrites();
     }
     expect(await rowCounts(ctx.db, ['users', 'audit_events'])).toEqual(before);
   });

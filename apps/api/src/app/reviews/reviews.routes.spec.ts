@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { createTestApp, rowCounts, type TestContext } from '../../testing/test-app';
+import { refuseAuditWrites } from '../../testing/refuse-audit-writes';
 
 // Invented counts.
 const spec = { observed: { labels: ['left', 'right'], counts: [130, 170] }, hypothesis: { kind: 'equal' } };
@@ -89,13 +90,12 @@ describe('reviews and comments', () => {
   it('leaves status and reviews untouched when the audit write fails', async () => {
     const id = await newAnalysis();
     const before = await rowCounts(ctx.db, ['analysis_reviews', 'analysis_comments', 'audit_events']);
-    await ctx.db.raw(`create trigger refuse_review_audit before insert on audit_events
-      when new.action in ('review', 'create') begin select raise(abort, 'refused for the test'); end`);
+    const allowAuditWrites = await refuseAuditWrites(ctx.db, "new.action in ('review', 'create')");
     try {
       expect((await ctx.as('analyst').post(`/analyses/${id}/submit`, {})).status).toBe(500);
       expect((await ctx.as('analyst').post(`/analyses/${id}/comments`, { body: 'lost' })).status).toBe(500);
     } finally {
-      await ctx.db.raw('drop trigger refuse_review_audit');
+      await allowAuditWrites();
     }
     expect(await rowCounts(ctx.db, ['analysis_reviews', 'analysis_comments', 'audit_events'])).toEqual(before);
     expect((await ctx.db('analyses').where({ id }).first()).status).toBe('draft');

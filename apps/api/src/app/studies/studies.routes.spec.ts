@@ -1,4 +1,5 @@
 import { createTestApp, rowCounts, type TestContext } from '../../testing/test-app';
+import { refuseAuditWrites } from '../../testing/refuse-audit-writes';
 
 describe('studies', () => {
   let ctx: TestContext;
@@ -124,14 +125,13 @@ describe('studies', () => {
   it('leaves no study, member or audit row behind when a write fails half-way', async () => {
     const before = await rowCounts(ctx.db, ['studies', 'study_members', 'audit_events']);
     // A study row is inserted, then the audit insert fails: the transaction must undo the study too.
-    await ctx.db.raw(`create trigger refuse_study_audit before insert on audit_events
-      when new.entity_type = 'study' begin select raise(abort, 'refused for the test'); end`);
+    const allowAuditWrites = await refuseAuditWrites(ctx.db, "new.entity_type = 'study'");
     try {
       const response = await ctx.as('analyst').post('/studies', { name: 'Half written' });
       expect(response.status).toBe(500);
       expect(response.body).toEqual({ error: { code: 'internal', message: 'something went wrong on our side' } });
     } finally {
-      await ctx.db.raw('drop trigger refuse_study_audit');
+      await allowAuditWrites();
     }
     expect(await rowCounts(ctx.db, ['studies', 'study_members', 'audit_events'])).toEqual(before);
   });
