@@ -10,17 +10,21 @@ const root = new URL('../..', import.meta.url).pathname;
 const reports = join(root, 'dist/test-reports');
 rmSync(reports, { recursive: true, force: true });
 
-const nx = (...args) =>
-  spawnSync('npx', ['nx', ...args, '--outputStyle=static'], { cwd: root, stdio: 'inherit', env: process.env }).status ?? 1;
+const { TALLYFIT_TEST_POSTGRES_URL: postgresUrl, ...embeddedEnv } = process.env;
+const nxWith = (env, ...args) =>
+  spawnSync('npx', ['nx', ...args, '--outputStyle=static'], { cwd: root, stdio: 'inherit', env }).status ?? 1;
+// Everything runs on the embedded SQLite default unless a step asks for PostgreSQL.
+const nx = (...args) => nxWith(embeddedEnv, ...args);
 
 const failures = [];
 if (nx('run-many', '-t', 'lint', 'typecheck', 'test', '--parallel=2') !== 0) failures.push('lint, type checks or unit tests');
 
 // The API suites again on PostgreSQL, when a server is offered (.ci/run starts one): the same
 // migrations and queries must hold on both databases.
-if (process.env.TALLYFIT_TEST_POSTGRES_URL) {
+if (postgresUrl) {
   const pgReport = 'dist/test-reports/api-postgres.json';
-  if (nx('run', 'api:test', '--skip-nx-cache', `--outputFile=${pgReport}`) !== 0) failures.push('API tests on PostgreSQL');
+  const pgEnv = { ...embeddedEnv, TALLYFIT_TEST_POSTGRES_URL: postgresUrl };
+  if (nxWith(pgEnv, 'run', 'api:test', '--skip-nx-cache', `--outputFile=${pgReport}`) !== 0) failures.push('API tests on PostgreSQL');
 } else {
   console.log('\nAPI tests on PostgreSQL not run: set TALLYFIT_TEST_POSTGRES_URL to a server URL to run them.');
 }
