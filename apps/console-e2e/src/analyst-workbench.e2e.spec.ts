@@ -39,7 +39,8 @@ describe('an analyst uploads a file, fixes a failed assumption, downloads and sh
     csvPath = join(folder, 'line-3-defects.csv');
     writeFileSync(csvPath, defectsCsv());
     // bypassCSP lets the accessibility check inject axe-core; the console itself runs under the API's CSP.
-    page = await browser.newPage({ viewport: { width: 1280, height: 800 }, acceptDownloads: true, bypassCSP: true });
+    // Reduced motion makes the stepper's slide instant, so screenshots show settled pages.
+    page = await browser.newPage({ viewport: { width: 1280, height: 800 }, acceptDownloads: true, bypassCSP: true, reducedMotion: 'reduce' });
     await signInAs(page, server.url, 'analyst', '/analyses/new');
   });
 
@@ -145,7 +146,7 @@ describe('an analyst uploads a file, fixes a failed assumption, downloads and sh
   });
 
   it('holds its layout on a phone', async () => {
-    const phone = await browser.newPage({ viewport: { width: 390, height: 844 } });
+    const phone = await browser.newPage({ viewport: { width: 390, height: 844 }, reducedMotion: 'reduce' });
     await signInAs(phone, server.url, 'analyst', '/analyses/new');
     await phone.getByRole('heading', { name: 'New analysis' }).waitFor();
     await screenshot(phone, 'workbench-01-data-390');

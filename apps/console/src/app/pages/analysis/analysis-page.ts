@@ -110,7 +110,7 @@ export class AnalysisPage {
       return;
     }
     try {
-      const merged = mergedRun(analysis.spec, analysis.result, remedy.plan);
+      const merged = mergedRun(analysis.spec, remedy.plan);
       this.runAgain(analysis, merged.spec, `Run again with categories merged: ${merged.lines.join('; ')}.`);
     } catch (error) {
       this.problem.set(apiErrorMessage(error));

@@ -8,20 +8,18 @@ describe('mergedRun', () => {
   };
   const result = analyze(spec);
 
-  it('sums the counts and expected shares of each merged group', () => {
-    const { spec: merged, lines } = mergedRun(spec, result, { groups: [{ label: 'three or more', members: ['three', 'four'] }] });
+  it('sums the counts and the ratio terms of each merged group', () => {
+    const { spec: merged, lines } = mergedRun(spec, { groups: [{ label: 'three or more', members: ['three', 'four'] }] });
     expect(merged.observed).toEqual({ labels: ['none', 'one', 'two', 'three or more'], counts: [40, 30, 20, 4] });
-    // 8:6:4:1:1 → shares 0.4, 0.3, 0.2, 0.05 + 0.05 = 0.1 (arithmetic).
-    expect(merged.hypothesis.kind).toBe('proportions');
-    const values = merged.hypothesis.kind === 'proportions' ? merged.hypothesis.values : [];
-    [0.4, 0.3, 0.2, 0.1].forEach((share, index) => expect(values[index]).toBeCloseTo(share, 12));
+    // 8:6:4:1:1 with the last two merged is 8:6:4:2 (arithmetic).
+    expect(merged.hypothesis).toEqual({ kind: 'ratio', values: [8, 6, 4, 2] });
     expect(lines).toEqual(['“three”, “four” → “three or more”']);
     expect(merged.mergedCategories).toEqual([{ label: 'three or more', members: ['three', 'four'] }]);
     expect(merged.notes?.[0]).toContain('"three", "four" into "three or more"');
   });
 
   it('gives a spec the engine accepts, with one degree of freedom fewer', () => {
-    const { spec: merged } = mergedRun(spec, result, { groups: [{ label: 'three or more', members: ['three', 'four'] }] });
+    const { spec: merged } = mergedRun(spec, { groups: [{ label: 'three or more', members: ['three', 'four'] }] });
     expect(analysisSpecSchema.safeParse(merged).success).toBe(true);
     expect(analyze(merged).df).toBe(result.df - 1);
   });
@@ -33,15 +31,13 @@ describe('mergedRun', () => {
     };
     const fittedResult = analyze(fitted);
     const last = fittedResult.categories.slice(-2).map((row) => row.label);
-    const { spec: merged } = mergedRun(fitted, fittedResult, { groups: [{ label: 'tail', members: last }] });
+    const { spec: merged } = mergedRun(fitted, { groups: [{ label: 'tail', members: last }] });
     expect(merged.hypothesis).toMatchObject({ kind: 'proportions', estimatedParameters: 1 });
     expect(analyze(merged).df).toBe(fittedResult.df - 1);
   });
 
-  it('refuses a plan that names a category the result does not have', () => {
-    expect(() => mergedRun(spec, result, { groups: [{ label: 'x', members: ['three', 'five'] }] })).toThrow(
-      'the plan names a category "five" that the result does not have',
-    );
+  it('refuses a plan that names a category the data does not have', () => {
+    expect(() => mergedRun(spec, { groups: [{ label: 'x', members: ['three', 'five'] }] })).toThrow('there is no category "five"');
   });
 });
 

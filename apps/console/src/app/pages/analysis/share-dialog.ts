@@ -23,6 +23,7 @@ export interface ShareDialogData {
   styles: `
     .field {
       width: 100%;
+      margin-bottom: 12px;
     }
     .problem {
       color: var(--mat-sys-error);

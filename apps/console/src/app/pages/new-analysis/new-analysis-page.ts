@@ -87,6 +87,8 @@ export class NewAnalysisPage {
   protected readonly title = signal('');
   private titleTouched = false;
   protected readonly run = signal<RunState>({ state: 'idle' });
+  /** the furthest step opened so far: a step counts as done only once the person has opened it */
+  protected readonly reached = signal(0);
   protected readonly n = computed(() => totalOf(this.data()?.observed.counts ?? []));
   protected readonly ready = computed(() => !!this.data() && !!this.hypothesis() && !!this.options() && this.title().trim() !== '');
   private running: Subscription | null = null;
@@ -104,6 +106,8 @@ export class NewAnalysisPage {
     });
     this.destroyRef.onDestroy(() => this.running?.unsubscribe());
   }
+
+  protected readonly max = Math.max;
 
   protected setTitle(value: string): void {
     this.titleTouched = true;
