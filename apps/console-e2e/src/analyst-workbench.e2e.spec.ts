@@ -6,6 +6,7 @@ import { seriousAxeViolations } from './support/axe-check';
 import { launchBrowser, screenshot } from './support/browser';
 import { signInAs } from './support/console-sign-in';
 import { DemoApi } from './support/demo-api';
+import { tabTo } from './support/keyboard';
 import { startTallyfit, type RunningServer } from './support/tallyfit-server';
 
 /**
@@ -143,6 +144,33 @@ describe('an analyst uploads a file, fixes a failed assumption, downloads and sh
     await page.getByTestId('power-chart').locator('svg').waitFor();
     await screenshot(page, 'workbench-08-planner-1280');
     expect(await seriousAxeViolations(page)).toEqual([]);
+  });
+
+  it('runs an analysis from typed counts by keyboard alone', async () => {
+    const keys = await browser.newPage({ viewport: { width: 1280, height: 800 }, reducedMotion: 'reduce' });
+    await signInAs(keys, server.url, 'analyst', '/analyses/new');
+    await keys.getByRole('heading', { name: 'New analysis' }).waitFor();
+    await tabTo(keys, /^Category 1/);
+    await keys.keyboard.press('Control+A');
+    await keys.keyboard.type('heads');
+    await tabTo(keys, /^Observed count/);
+    await keys.keyboard.type('61');
+    await tabTo(keys, /^Category 2/);
+    await keys.keyboard.press('Control+A');
+    await keys.keyboard.type('tails');
+    await tabTo(keys, /^Observed count/);
+    await keys.keyboard.type('39');
+    for (let step = 0; step < 3; step++) {
+      await tabTo(keys, /^Next$/);
+      await keys.keyboard.press('Enter');
+    }
+    await tabTo(keys, /^Run the test$/);
+    await keys.keyboard.press('Enter');
+    // 61 heads in 100 tosses against 1:1: X² = (61 − 50)²/50 · 2 = 4.84, 1 df, p = .028 (arithmetic; chi-square table).
+    await keys.getByTestId('statistic').waitFor();
+    await expect(keys.getByTestId('statistic').textContent()).resolves.toBe('4.84');
+    await expect(keys.getByTestId('p').textContent()).resolves.toBe('= .028');
+    await keys.close();
   });
 
   it('holds its layout on a phone', async () => {
