@@ -102,6 +102,17 @@ describe('an analyst uploads a file, fixes a failed assumption, downloads and sh
     expect(await seriousAxeViolations(page)).toEqual([]);
   });
 
+  it('saves a chart as SVG and as PNG', async () => {
+    const sharesChart = page.locator('figure').filter({ has: page.getByTestId('shares-chart') });
+    const [svg] = await Promise.all([page.waitForEvent('download'), sharesChart.getByRole('button', { name: 'SVG' }).click()]);
+    expect(svg.suggestedFilename()).toMatch(/^analysis-\d+-shares\.svg$/);
+    expect(readFileSync((await svg.path())!, 'utf8')).toContain('<svg');
+    const [png] = await Promise.all([page.waitForEvent('download'), sharesChart.getByRole('button', { name: 'PNG' }).click()]);
+    expect(png.suggestedFilename()).toMatch(/^analysis-\d+-shares\.png$/);
+    // A PNG file starts with the bytes 0x89 "PNG".
+    expect(readFileSync((await png.path())!).subarray(1, 4).toString('latin1')).toBe('PNG');
+  });
+
   it('merges the sparse categories as a new version and says what changed', async () => {
     await page.getByRole('button', { name: 'Merge these and run again' }).click();
     await page.getByRole('heading', { name: 'What changed since version 1' }).waitFor();
@@ -110,11 +121,13 @@ describe('an analyst uploads a file, fixes a failed assumption, downloads and sh
     await screenshot(page, 'workbench-06-merged-1280');
   });
 
-  it('downloads the report as Markdown and the categories as CSV', async () => {
+  it('downloads the report as Markdown and PDF, and the categories as CSV', async () => {
     const [markdown] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Markdown' }).click()]);
     const report = readFileSync((await markdown.path())!, 'utf8');
     expect(report).toContain('Line 3 defects against the usual mix');
     expect(report).toMatch(/[Mm]erged/);
+    const [pdf] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'PDF' }).click()]);
+    expect(readFileSync((await pdf.path())!).subarray(0, 5).toString('latin1')).toBe('%PDF-');
     const [csv] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Categories as CSV' }).click()]);
     expect(readFileSync((await csv.path())!, 'utf8').split('\n')[0].toLowerCase()).toContain('observed');
   });
