@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { analysisSpecSchema, testNames, type AnalysisResult } from '@tallyfit/engine';
-import { MAX_PAGE_SIZE } from './pagination';
+import { booleanQueryText, dateQueryText, pageQueryFields } from './pagination';
 import { personRefSchema } from './people-ref';
 
 /** Where an analysis is in review: draft → in review → signed off | returned (a returned one can be resubmitted). */
@@ -74,20 +74,9 @@ export type AnalysisSummary = z.infer<typeof analysisSummarySchema>;
 
 export const HISTORY_SORTS = ['date', 'study', 'author', 'p', 'status'] as const;
 
-const booleanText = (name: string) =>
-  z.enum(['true', 'false'], { message: `${name} must be true or false` }).transform((value) => value === 'true');
-const dateText = (name: string) =>
-  z.string().refine((value) => !Number.isNaN(Date.parse(value)), { message: `${name} must be a date or date-time (ISO 8601)` });
-
 /** The history's query string: page, sort and filters (all optional). */
 export const listAnalysesQuerySchema = z.object({
-  page: z.coerce.number().int().min(1, { message: 'page must be 1 or more' }).default(1),
-  pageSize: z.coerce
-    .number()
-    .int()
-    .min(1, { message: 'pageSize must be 1 or more' })
-    .max(MAX_PAGE_SIZE, { message: `pageSize must be at most ${MAX_PAGE_SIZE}` })
-    .default(25),
+  ...pageQueryFields(25),
   sort: z.enum(HISTORY_SORTS, { message: `sort must be one of ${HISTORY_SORTS.join(', ')}` }).default('date'),
   order: z.enum(['asc', 'desc'], { message: 'order must be asc or desc' }).default('desc'),
   studyId: z.coerce.number().int().positive({ message: 'studyId must be a positive whole number' }).optional(),
@@ -98,12 +87,12 @@ export const listAnalysesQuerySchema = z.object({
     .optional(),
   test: z.enum(testNames, { message: `test must be one of ${testNames.join(', ')}` }).optional(),
   status: analysisStatusSchema.optional(),
-  from: dateText('from').optional(),
-  to: dateText('to').optional(),
-  significant: booleanText('significant').optional(),
+  from: dateQueryText('from').optional(),
+  to: dateQueryText('to').optional(),
+  significant: booleanQueryText('significant').optional(),
   q: z.string().trim().min(1, { message: 'q must not be empty' }).max(200).optional(),
   /** Include earlier versions of re-run analyses (by default only the latest version is listed). */
-  allVersions: booleanText('allVersions').optional(),
+  allVersions: booleanQueryText('allVersions').optional(),
 });
 /** The query as a client writes it (all optional, text values). */
 export type ListAnalysesQuery = z.input<typeof listAnalysesQuerySchema>;

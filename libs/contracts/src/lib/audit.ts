@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { MAX_PAGE_SIZE } from './pagination';
+import { dateQueryText, pageQueryFields } from './pagination';
 
 /** What kind of change an audit event records. */
 export const AUDIT_ACTIONS = [
@@ -31,23 +31,14 @@ export const auditEventSchema = z.object({
 });
 export type AuditEvent = z.infer<typeof auditEventSchema>;
 
-const isoDateTime = (name: string) =>
-  z.string().refine((value) => !Number.isNaN(Date.parse(value)), { message: `${name} must be a date or date-time (ISO 8601)` });
-
 export const listAuditQuerySchema = z.object({
-  page: z.coerce.number().int().min(1, { message: 'page must be 1 or more' }).default(1),
-  pageSize: z.coerce
-    .number()
-    .int()
-    .min(1, { message: 'pageSize must be 1 or more' })
-    .max(MAX_PAGE_SIZE, { message: `pageSize must be at most ${MAX_PAGE_SIZE}` })
-    .default(50),
+  ...pageQueryFields(50),
   actorId: z.coerce.number().int().positive({ message: 'actorId must be a positive whole number' }).optional(),
   action: auditActionSchema.optional(),
   entityType: z.string().max(32).optional(),
   entityId: z.string().max(64).optional(),
   studyId: z.coerce.number().int().positive({ message: 'studyId must be a positive whole number' }).optional(),
-  from: isoDateTime('from').optional(),
-  to: isoDateTime('to').optional(),
+  from: dateQueryText('from').optional(),
+  to: dateQueryText('to').optional(),
 });
 export type ListAuditQuery = z.infer<typeof listAuditQuerySchema>;
