@@ -53,7 +53,11 @@ describe('an analyst signs in, runs a test and finds it saved', () => {
     await counts.nth(1).fill('1895');
     await screenshot(page, '03-new-analysis');
     // The guided flow: counts → what was expected (equal shares by default) → tests and options → run.
-    for (let step = 0; step < 3; step++) await page.getByRole('button', { name: 'Next', exact: true }).filter({ visible: true }).click();
+    // Each step's header is selected before the next click, so no click lands on a step sliding away.
+    for (const step of ['What was expected', 'Tests and options', 'Run']) {
+      await page.getByRole('button', { name: 'Next', exact: true }).filter({ visible: true }).click();
+      await page.getByRole('tab', { name: step, selected: true }).waitFor();
+    }
     await page.getByLabel('Title').fill('Seedling colour against a 1:1 split');
     await page.getByRole('button', { name: 'Run the test' }).click();
 
