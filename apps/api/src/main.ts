@@ -29,7 +29,7 @@ async function main(): Promise<void> {
       `Tallyfit is running at ${url}  (engine ${ENGINE_VERSION}, data in ${config.dataDir})`,
       `Mail goes to ${mail.destination}.`,
       config.consoleDir ? '' : 'The console is not built; only the API is served (run `npx nx build console`).',
-      ...(signIns.length ? ['Demo sign-ins (local only):', ...signIns.map((s) => `  ${s.role.padEnd(8)} ${s.email}  ${s.password}`)] : []),
+      ...(signIns.length ? ['Demo sign-ins (local only):', ...signIns.map((s) => `  ${s.role.padEnd(8)} ${s.email.padEnd(30)} ${s.password}`)] : []),
       '',
     ];
     process.stdout.write(lines.filter((line, i) => line !== '' || i === 0 || i === lines.length - 1).join('\n') + '\n');
