@@ -1,7 +1,6 @@
 /**
  * Sison–Glaz simultaneous confidence intervals for multinomial shares (Sison & Glaz 1995,
- * JASA 90:366–369), as also set out by May & Johnson (1997, "A SAS macro for constructing
- * simultaneous confidence intervals for multinomial proportions").
+ * JASA 90:366–369), as also set out by May & Johnson (1997) for multinomial proportions.
  *
  * ν(c) = P(nᵢ − c ≤ Xᵢ ≤ nᵢ + c for all i), X ~ Multinomial(n, p̂), is evaluated through Levin's
  * (1981, Ann. Statist. 9:1123) representation
