@@ -1,9 +1,8 @@
 import { ChangeDetectionStrategy, Component, computed, ElementRef, inject, input, signal } from '@angular/core';
-import { MatButtonModule } from '@angular/material/button';
-import { MatIconModule } from '@angular/material/icon';
 import type { AnalysisResult } from '@tallyfit/engine';
 import { NgxEchartsDirective, provideEchartsCore } from 'ngx-echarts';
-import { saveChartAsPng, saveChartAsSvg, type SvgChart } from '../../shared/charts/chart-export';
+import type { SvgChart } from '../../shared/charts/chart-export';
+import { ChartSaveButtons } from '../../shared/charts/chart-save-buttons';
 import { themeColours } from '../../shared/charts/theme-colours';
 import { residualsChartOptions, RESIDUAL_GUIDE, sharesChartOptions } from './chart-options';
 
@@ -17,7 +16,7 @@ const INTERVAL_NAMES: Record<AnalysisResult['intervals']['method'], string> = {
 /** The result's two charts — shares with intervals, and adjusted residuals — each savable as PNG or SVG. */
 @Component({
   selector: 'tf-result-charts',
-  imports: [MatButtonModule, MatIconModule, NgxEchartsDirective],
+  imports: [ChartSaveButtons, NgxEchartsDirective],
   providers: [provideEchartsCore({ echarts: () => import('../../shared/charts/echarts-parts').then((m) => m.echarts) })],
   templateUrl: './result-charts.html',
   styleUrl: './result-charts.scss',
@@ -38,23 +37,12 @@ export class ResultCharts {
   protected readonly sharesOptions = computed(() => sharesChartOptions(this.result().categories, this.intervalLabel(), this.colours));
   protected readonly residualsOptions = computed(() => residualsChartOptions(this.result().categories, this.colours));
   protected readonly chartHeight = computed(() => Math.max(240, 48 + this.result().categories.length * 36));
-  protected readonly problem = signal<string | null>(null);
+  /** the PNG background: the page's surface colour */
+  protected readonly background = this.colours.surface;
+  /** each chart by name, once ECharts has drawn it */
+  protected readonly charts = signal<Partial<Record<'shares' | 'residuals', SvgChart>>>({});
 
-  private readonly charts = new Map<string, SvgChart>();
-
-  protected register(name: string, chart: unknown): void {
-    this.charts.set(name, chart as SvgChart);
-  }
-
-  protected saveSvg(name: string): void {
-    const chart = this.charts.get(name);
-    if (chart) saveChartAsSvg(chart, `${this.fileName()}-${name}`);
-  }
-
-  protected savePng(name: string): void {
-    const chart = this.charts.get(name);
-    if (!chart) return;
-    this.problem.set(null);
-    saveChartAsPng(chart, `${this.fileName()}-${name}`, this.colours.surface).catch((error: Error) => this.problem.set(error.message));
+  protected register(name: 'shares' | 'residuals', chart: SvgChart): void {
+    this.charts.update((charts) => ({ ...charts, [name]: chart }));
   }
 }
