@@ -51,7 +51,11 @@ describe('an analyst uploads a file, fixes a failed assumption, downloads and sh
     if (folder) rmSync(folder, { recursive: true, force: true });
   });
 
-  const next = () => page.getByRole('button', { name: 'Next', exact: true }).filter({ visible: true }).click();
+  /** Goes on to the named step and waits until its header is selected. */
+  const next = async (step: string) => {
+    await page.getByRole('button', { name: 'Next', exact: true }).filter({ visible: true }).click();
+    await page.getByRole('tab', { name: step, selected: true }).waitFor();
+  };
 
   it('uploads the CSV with a progress bar and counts the chosen column before running', async () => {
     await page.getByRole('heading', { name: 'New analysis' }).waitFor();
@@ -69,7 +73,7 @@ describe('an analyst uploads a file, fixes a failed assumption, downloads and sh
   });
 
   it('states the usual mix and sees the expected counts before running', async () => {
-    await next();
+    await next('What was expected');
     await page.getByRole('radio', { name: 'A share for each category' }).check();
     for (const [defect, share] of Object.entries(USUAL_MIX)) {
       await page.getByRole('spinbutton', { name: defect, exact: true }).fill(String(share));
@@ -79,9 +83,9 @@ describe('an analyst uploads a file, fixes a failed assumption, downloads and sh
     const warp = page.getByTestId('expected-preview').getByRole('row', { name: /^warp/ });
     await expect(warp.textContent()).resolves.toContain('2.00');
     await screenshot(page, 'workbench-02-hypothesis-1280');
-    await next();
+    await next('Tests and options');
     await screenshot(page, 'workbench-03-options-1280');
-    await next();
+    await next('Run');
     await page.getByLabel('Title').fill('Line 3 defects against the usual mix');
     await screenshot(page, 'workbench-04-run-1280');
     await page.getByRole('button', { name: 'Run the test' }).click();
@@ -173,9 +177,11 @@ describe('an analyst uploads a file, fixes a failed assumption, downloads and sh
     await keys.keyboard.type('tails');
     await tabTo(keys, /^Observed count/);
     await keys.keyboard.type('39');
-    for (let step = 0; step < 3; step++) {
+    // Wait for each step's header to be selected before tabbing on, so no key press lands mid-change.
+    for (const step of ['What was expected', 'Tests and options', 'Run']) {
       await tabTo(keys, /^Next$/);
       await keys.keyboard.press('Enter');
+      await keys.getByRole('tab', { name: step, selected: true }).waitFor();
     }
     await tabTo(keys, /^Run the test$/);
     await keys.keyboard.press('Enter');
