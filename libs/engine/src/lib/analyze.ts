@@ -131,6 +131,26 @@ function adviceFor(
   return advice;
 }
 
+/**
+ * An expected share so small that (O − E)² / E overflows a double: no statistic, p-value or effect
+ * size can be computed, so the input is refused, naming the category.
+ */
+function shareTooSmall(
+  spec: AnalysisSpec,
+  labels: readonly string[],
+  active: readonly number[],
+  activeShares: readonly number[],
+): EngineInputError {
+  const smallest = activeShares.indexOf(Math.min(...activeShares));
+  const label = labels[active[smallest]];
+  const position = spec.observed.labels.indexOf(label);
+  const path = 'values' in spec.hypothesis && position >= 0 ? `hypothesis.values.${position}` : 'hypothesis';
+  return EngineInputError.at(
+    path,
+    `the expected share of category "${label}" (${activeShares[smallest].toPrecision(3)}) is too small to test against: the chi-square statistic overflows`,
+  );
+}
+
 function sum(values: readonly number[]): number {
   let total = 0;
   for (const value of values) total += value;
@@ -181,6 +201,7 @@ export function analyze(input: AnalysisSpec, options: AnalyzeOptions = {}): Anal
   const ran: TestName[] = requested ? [...requested] : ['pearson', 'g', ...(summary.cochranOk ? [] : ['exact' as const])];
 
   const pearsonValue = pearsonStatistic(activeCounts, activeExpected);
+  if (!Number.isFinite(pearsonValue)) throw shareTooSmall(spec, labels, active, activeShares);
   const tests: AnalysisTests = {};
   const lines: Report['lines'] = {};
   for (const test of ran) {
@@ -196,7 +217,9 @@ export function analyze(input: AnalysisSpec, options: AnalyzeOptions = {}): Anal
     } else if (test === 'cressie-read') {
       // `+ 0` turns a −0 from the spec into 0, which JSON would do anyway.
       const lambda = (spec.cressieReadLambda ?? DEFAULT_CRESSIE_READ_LAMBDA) + 0;
-      tests.cressieRead = { ...chiSquareTestResult(cressieReadStatistic(activeCounts, activeExpected, lambda), df), lambda };
+      const statistic = cressieReadStatistic(activeCounts, activeExpected, lambda);
+      if (!Number.isFinite(statistic)) throw shareTooSmall(spec, labels, active, activeShares);
+      tests.cressieRead = { ...chiSquareTestResult(statistic, df), lambda };
       lines.cressieRead = cressieReadLine(tests.cressieRead, n, lambda);
     } else {
       const exact = runExactTest(spec, activeCounts, activeShares, options.onProgress);
