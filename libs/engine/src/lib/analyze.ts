@@ -84,10 +84,8 @@ function runExactTest(
 }
 
 function chooseMainTest(requested: readonly TestName[] | undefined, ran: readonly TestName[], cochranOk: boolean): MainTest {
-  const asKey = (test: TestName): MainTest => (test === 'cressie-read' ? 'cressieRead' : test);
   if (ran.includes('exact') && (!cochranOk || !requested || requested[0] === 'exact')) return 'exact';
-  const first = ran.find((test) => test !== 'exact');
-  return first ? asKey(first) : 'exact';
+  return ran.find((test) => test !== 'exact') ?? 'exact';
 }
 
 function mainTestReason(
@@ -240,8 +238,9 @@ export function analyze(input: AnalysisSpec, options: AnalyzeOptions = {}): Anal
       const lambda = (spec.cressieReadLambda ?? DEFAULT_CRESSIE_READ_LAMBDA) + 0;
       const statistic = cressieReadStatistic(activeCounts, activeExpected, lambda);
       if (!Number.isFinite(statistic)) throw shareTooSmall(spec, labels, active, activeShares);
-      tests.cressieRead = { ...chiSquareTestResult(statistic, df), lambda };
-      lines.cressieRead = cressieReadLine(tests.cressieRead, n, lambda, alpha);
+      const cressieRead = { ...chiSquareTestResult(statistic, df), lambda };
+      tests['cressie-read'] = cressieRead;
+      lines['cressie-read'] = cressieReadLine(cressieRead, n, lambda, alpha);
     } else {
       const exact = runExactTest(spec, activeCounts, activeShares, options.onProgress);
       tests.exact = exact.result;

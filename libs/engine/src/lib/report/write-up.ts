@@ -6,6 +6,7 @@ import type { AnalysisResult, CategoryRow, MainTest, Report } from '../result/an
 import { effectSizeWord } from '../effect-size/cohens-w';
 import { formatCount, formatEffectSize, formatPValueAt, formatPercent, formatShare, formatStatistic, groupDigits } from './format-numbers';
 import { standsOut } from './stands-out';
+import { TEST_LABELS } from '../spec/vocabulary';
 
 export interface WriteUpInput {
   result: Omit<AnalysisResult, 'report' | 'engineVersion'>;
@@ -20,12 +21,6 @@ export interface WriteUpInput {
   merged: boolean;
 }
 
-const TEST_NAMES: Record<MainTest, string> = {
-  pearson: "Pearson's chi-square goodness-of-fit test",
-  g: 'the likelihood-ratio G-test',
-  cressieRead: 'the Cressie–Read power-divergence test',
-  exact: 'the exact multinomial test',
-};
 
 function listInProse(items: readonly string[]): string {
   if (items.length <= 1) return items.join('');
@@ -42,12 +37,12 @@ function methodsSentence(input: WriteUpInput): string {
   const { result } = input;
   const others = (Object.keys(input.lines) as MainTest[]).filter((test) => test !== input.mainTest);
   const exactWithBinomial = result.tests.exact?.method === 'binomial';
-  const mainName = input.mainTest === 'exact' && exactWithBinomial ? 'the two-sided exact binomial test' : TEST_NAMES[input.mainTest];
+  const mainName = input.mainTest === 'exact' && exactWithBinomial ? 'the two-sided exact binomial test' : TEST_LABELS[input.mainTest].prose;
   const sentences = [
     `The observed counts in ${result.k} categories (N = ${groupDigits(result.n)}) were compared with ${result.hypothesis.description} using ${mainName}${input.williamsUsed && input.mainTest === 'g' ? " with Williams' correction" : ''}, because ${input.reason}.`,
   ];
   if (others.length > 0) {
-    sentences.push(`For comparison, ${listInProse(others.map((test) => TEST_NAMES[test]))} ${others.length === 1 ? 'was' : 'were'} also computed.`);
+    sentences.push(`For comparison, ${listInProse(others.map((test) => TEST_LABELS[test].prose))} ${others.length === 1 ? 'was' : 'were'} also computed.`);
   }
   if (result.tests.exact && result.tests.exact.method === 'monte-carlo') {
     sentences.push(
