@@ -55,3 +55,4 @@ export { upgradeStoredResult } from './lib/result/upgrade-stored-result';
 export { effectSizeWord } from './lib/effect-size/cohens-w';
 export { formatEffectSize, formatP, formatPAt, formatPValue, formatPValueAt } from './lib/report/format-numbers';
 export { standsOut, type Departure } from './lib/report/stands-out';
+export { SHARE_SUM_EXACT_TOLERANCE, SHARE_SUM_ROUNDING_TOLERANCE } from './lib/spec/share-tolerance';
