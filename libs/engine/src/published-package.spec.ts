@@ -53,6 +53,14 @@ describe('the published package', () => {
     expect(result.engineVersion).toBe(ENGINE_VERSION);
   });
 
+  it('runs `npx tallyfit sequential -` on batches from standard input', () => {
+    const stream = { observed: { labels: ['left', 'right'] }, hypothesis: { kind: 'equal' }, batches: [[500, 500], [580, 420]] };
+    const printed = execFileSync('npx', ['tallyfit', 'sequential', '-'], { cwd: folder, encoding: 'utf8', input: JSON.stringify(stream), env: { ...process.env, npm_config_offline: 'true' } });
+    const result = JSON.parse(printed);
+    expect(result.looks.map((look: { n: number }) => look.n)).toEqual([1000, 2000]);
+    expect(result.looks[1].p).toBeLessThan(result.looks[0].p);
+  });
+
   it('can be imported as an ES module', () => {
     const output = run(
       process.execPath,

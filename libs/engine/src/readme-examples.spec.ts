@@ -1,6 +1,8 @@
 /** The README's examples, run against the public entry point so the documentation cannot drift. */
 import {
+  addSequentialBatch,
   analyze,
+  analyzeSequential,
   chiSquareCriticalValue,
   chiSquareLogSurvival,
   chiSquareQuantile,
@@ -9,6 +11,7 @@ import {
   mergeCategories,
   power,
   sampleSize,
+  startSequential,
   type AnalysisSpec,
 } from './index';
 
@@ -71,5 +74,31 @@ describe('README examples', () => {
     expect(chiSquareLogSurvival(1500, 1)).toBeCloseTo(-753.883067105382, 9);
     expect(chiSquareCriticalValue(0.05, 3)).toBeCloseTo(7.8147, 4);
     expect(chiSquareQuantile(0.5, 10)).toBeCloseTo(9.3418, 4);
+  });
+
+  it('sequential tests for streams of batches', () => {
+    const result = analyzeSequential({
+      observed: { labels: ['control', 'variant'] },
+      hypothesis: { kind: 'equal' },
+      batches: [[5030, 4970], [5120, 4880], [5150, 4850], [5100, 4900]],
+    });
+    const p = result.looks.map((look) => look.p);
+    expect(p.slice(0, 2)).toEqual([1, 1]);
+    expect(p[2]).toBeCloseTo(0.04395, 5);
+    expect(p[3]).toBeCloseTo(0.006865, 6);
+    expect(result.firstAlarm).toBe(3);
+    expect(result.looks[2].n).toBe(30000);
+    const control = result.looks[3].shares[0];
+    expect(control).toMatchObject({ label: 'control', expected: 0.5, estimate: 0.51 });
+    expect(control.lower).toBeCloseTo(0.5013, 4);
+    expect(control.upper).toBeCloseTo(0.5187, 4);
+
+    const state = startSequential({ observed: { labels: ['day', 'evening', 'night'] }, hypothesis: { kind: 'ratio', values: [2, 2, 1] }, alpha: 0.01 });
+    expect(state).toEqual({ labels: ['day', 'evening', 'night'], expectedShares: [0.4, 0.4, 0.2], alpha: 0.01, concentration: 100, counts: [0, 0, 0], batches: 0, p: 1 });
+    const { state: next, look } = addSequentialBatch(state, [410, 395, 195]);
+    expect(next.counts).toEqual([410, 395, 195]);
+    expect(look.shares[2]).toMatchObject({ label: 'night', expected: 0.2, estimate: 0.195 });
+    expect(look.shares[2].lower).toBeCloseTo(0.1547, 4);
+    expect(look.shares[2].upper).toBeCloseTo(0.24, 4);
   });
 });

@@ -36,6 +36,30 @@ describe('tallyfit CLI', () => {
     expect(JSON.parse(fromStdin.out)).toEqual(result);
   });
 
+  it('sequential reads batches from a file or standard input and prints each look with n, p and alarm', async () => {
+    // The hand-computed stream of sequential.spec.ts: BF = 4/5, 32/63, 2048/1001 under a uniform prior.
+    const stream = JSON.stringify({
+      observed: { labels: ['left', 'right'] },
+      hypothesis: { kind: 'equal' },
+      batches: [[3, 1], [2, 2], [5, 0]],
+      alpha: 0.5,
+      concentration: 2,
+    });
+    const fromStdin = await run(['sequential', '-'], {}, stream);
+    expect(fromStdin.code).toBe(0);
+    const printed = JSON.parse(fromStdin.out);
+    expect(printed.looks.map((look: { n: number; alarm: boolean }) => [look.n, look.alarm])).toEqual([
+      [4, false],
+      [8, false],
+      [13, true],
+    ]);
+    expect(printed.looks.map((look: { p: number }) => look.p).slice(0, 2)).toEqual([1, 1]);
+    expect(printed.looks[2].p).toBeCloseTo(1001 / 2048, 13);
+    expect(printed).toMatchObject({ firstAlarm: 3, alpha: 0.5, concentration: 2, engineVersion: ENGINE_VERSION });
+    const fromFile = await run(['sequential', 'stream.json'], { 'stream.json': stream });
+    expect(JSON.parse(fromFile.out)).toEqual(printed);
+  });
+
   it('power prints { power, criticalValue, ncp }', async () => {
     const { code, out } = await run(['power', '--w', '0.3', '--df', '1', '--n=100']);
     expect(code).toBe(0);
@@ -61,7 +85,8 @@ describe('tallyfit CLI', () => {
 
   it.each([
     [[], 'tallyfit: no command given (try tallyfit --help)'],
-    [['fit'], 'tallyfit: unknown command "fit" (expected analyze, power, sample-size or chisq)'],
+    [['fit'], 'tallyfit: unknown command "fit" (expected analyze, sequential, power, sample-size or chisq)'],
+    [['sequential'], 'tallyfit: sequential needs exactly one argument: a spec file, or - for standard input'],
     [['power', '--w', 'abc', '--df', '1', '--n', '5'], 'tallyfit: --w must be a number, got "abc"'],
     [['power', '--w', '0.3', '--df', '1'], 'tallyfit: --n is required'],
     [['power', '--w', '0.3', '--df', '1', '--n', '5', '--bogus', '1'], 'tallyfit: unknown option --bogus (expected --w, --df, --n, --alpha)'],
@@ -84,10 +109,21 @@ describe('tallyfit CLI', () => {
     const invalid = await run(['analyze', '-'], {}, JSON.stringify({ observed: { labels: ['a'], counts: [1] }, hypothesis: { kind: 'equal' } }));
     expect(invalid.code).toBe(2);
     expect(invalid.err).toBe('tallyfit: invalid input: observed.labels: at least 2 categories are needed, got 1\n');
+    const counts = await run(
+      ['sequential', '-'],
+      {},
+      JSON.stringify({ observed: { labels: ['a', 'b'] }, hypothesis: { kind: 'counts', values: [5, 5] }, batches: [[5, 5]] }),
+    );
+    expect(counts.code).toBe(2);
+    expect(counts.err).toBe(
+      'tallyfit: invalid input: hypothesis.kind: a sequential test needs shares fixed in advance: use equal, proportions or ratio (counts depends on the data)\n',
+    );
   });
 
   it('prints help and the version', async () => {
-    expect((await run(['--help'])).out).toMatch(/tallyfit analyze FILE\|-/);
+    const help = (await run(['--help'])).out;
+    expect(help).toMatch(/tallyfit analyze FILE\|-/);
+    expect(help).toMatch(/tallyfit sequential FILE\|-/);
     expect((await run(['--version'])).out).toBe(`${ENGINE_VERSION}\n`);
   });
 });
