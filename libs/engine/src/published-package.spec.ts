@@ -6,7 +6,7 @@
  * consumer against the packed declarations.
  */
 import { execFileSync } from 'node:child_process';
-import { mkdirSync, mkdtempSync, readFileSync, readdirSync, renameSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, renameSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { delimiter, dirname, join, resolve } from 'node:path';
 import { ENGINE_VERSION } from './lib/engine-version';
@@ -20,6 +20,16 @@ interface Manifest {
   bin: Record<string, string>;
   dependencies: Record<string, string>;
   exports: Record<string, Record<string, string> | string>;
+}
+
+/** `version` satisfies a caret range `^M.m.p` (the only kind the manifest uses): same major, not older. */
+function satisfiesCaret(version: string, range: string): boolean {
+  const wanted = /^\^(\d+)\.(\d+)\.(\d+)$/.exec(range);
+  if (!wanted) throw new Error(`unexpected dependency range ${range}; use ^major.minor.patch`);
+  const [major, minor, patch] = version.split('.').map((part) => Number.parseInt(part, 10));
+  const [wantMajor, wantMinor, wantPatch] = wanted.slice(1).map(Number);
+  if (major !== wantMajor) return false;
+  return minor > wantMinor || (minor === wantMinor && patch >= wantPatch);
 }
 
 function run(command: string, args: string[], cwd: string, env: NodeJS.ProcessEnv = process.env): string {
@@ -49,8 +59,11 @@ describe('the published package', () => {
     renameSync(join(modules, '@tallyfit/package'), packageDir);
     manifest = JSON.parse(readFileSync(join(packageDir, 'package.json'), 'utf8'));
 
-    for (const dependency of Object.keys(manifest.dependencies)) {
+    for (const [dependency, range] of Object.entries(manifest.dependencies)) {
       const target = join(workspaceRoot, 'node_modules', dependency);
+      if (!existsSync(join(target, 'package.json'))) throw new Error(`the package depends on ${dependency}, which the workspace does not install`);
+      const linked = JSON.parse(readFileSync(join(target, 'package.json'), 'utf8')).version as string;
+      if (!satisfiesCaret(linked, range)) throw new Error(`the package asks for ${dependency}@${range} but the workspace has ${linked}`);
       mkdirSync(dirname(join(modules, dependency)), { recursive: true });
       symlinkSync(target, join(modules, dependency), 'dir');
     }
@@ -81,7 +94,7 @@ describe('the published package', () => {
     expect(result.tests.pearson.statistic).toBeCloseTo(5.607, 3);
     expect(result.tests.pearson.p).toBeCloseTo(0.0179, 4);
     expect(result.engineVersion).toBe(ENGINE_VERSION);
-  });
+  }, 120_000);
 
   it('can be imported as an ES module', () => {
     const output = run(
@@ -91,7 +104,7 @@ describe('the published package', () => {
     );
     // P = 0.0179 for X² = 5.6071 on 1 d.f.: McDonald (2014), as above.
     expect(output.trim()).toBe(`${ENGINE_VERSION} 0.0179`);
-  });
+  }, 120_000);
 
   it('offers no CommonJS entry point, as the README says (an ES module only)', () => {
     expect(Object.keys(manifest.exports['.'] as Record<string, string>)).toEqual(['types', 'import']);
@@ -120,5 +133,5 @@ describe('the published package', () => {
     expect(diagnostics('consumer.ts')).toBe('');
     // The declarations really are read: a wrong type is caught.
     expect(diagnostics('wrong.ts')).toMatch(/Type 'number' is not assignable to type 'string'/);
-  });
+  }, 120_000);
 });
