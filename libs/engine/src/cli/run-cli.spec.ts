@@ -1,4 +1,6 @@
 import { ENGINE_VERSION } from '../lib/engine-version';
+import { expectClose } from '../testing/expect-close';
+import { readFixture, rowWhere } from '../testing/reference-fixtures';
 import { runCli, type CliIo } from './run-cli';
 
 interface Run {
@@ -30,6 +32,7 @@ describe('tallyfit CLI', () => {
     const fromFile = await run(['analyze', 'spec.json'], { 'spec.json': spec });
     expect(fromFile.code).toBe(0);
     const result = JSON.parse(fromFile.out);
+    // McDonald, Handbook of Biological Statistics, 3rd ed. (2014), "Chi-square test of goodness-of-fit" (from memory): P = 0.0179.
     expect(result.tests.pearson.p).toBeCloseTo(0.0179, 4);
     expect(result.engineVersion).toBe(ENGINE_VERSION);
     const fromStdin = await run(['analyze', '-'], {}, spec);
@@ -65,22 +68,23 @@ describe('tallyfit CLI', () => {
     expect(code).toBe(0);
     const printed = JSON.parse(out);
     expect(Object.keys(printed)).toEqual(['power', 'criticalValue', 'ncp']);
-    expect(printed.power).toBeCloseTo(0.8508, 4);
+    expectClose(printed.power, rowWhere(readFixture('power').power, { w: 0.3, df: 1, n: 100, alpha: 0.05 }).power, { relative: 1e-13 });
   });
 
   it('sample-size prints { n, nContinuous, power }', async () => {
     const { code, out } = await run(['sample-size', '--w', '0.1', '--df', '1', '--power', '0.8', '--alpha', '0.05']);
     expect(code).toBe(0);
-    expect(JSON.parse(out)).toMatchObject({ n: 785 });
+    expect(JSON.parse(out)).toMatchObject({ n: rowWhere(readFixture('power').sampleSize, { w: 0.1, df: 1, power: 0.8, alpha: 0.05 }).n });
   });
 
   it('chisq prints the tails at x, or the critical value for alpha', async () => {
     const tails = JSON.parse((await run(['chisq', '--x', '1500', '--df', '1'])).out);
     expect(tails.upper).toBe(0);
-    expect(tails.logUpper).toBeCloseTo(-753.883, 3);
+    const chiSquare = readFixture('chi-square');
+    expectClose(tails.logUpper, rowWhere(chiSquare.tails, { x: 1500, df: 1 }).logUpper, { relative: 4 * Number.EPSILON });
     expect(tails.lower).toBe(1);
     const quantile = JSON.parse((await run(['chisq', '--alpha', '0.05', '--df', '3'])).out);
-    expect(quantile.quantile).toBeCloseTo(7.8147, 4);
+    expectClose(quantile.quantile, rowWhere(chiSquare.quantiles, { df: 3, alpha: 0.05 }).criticalValue, { relative: 1e-14 });
   });
 
   it.each([
