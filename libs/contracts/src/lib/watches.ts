@@ -163,6 +163,14 @@ export const updateWatchRequestSchema = z
   });
 export type UpdateWatchRequest = z.infer<typeof updateWatchRequestSchema>;
 
+/**
+ * Resuming a paused watch. The sequential p never increases, so an alarm stands until the test is
+ * restarted: `restart` begins a fresh sequential test from the next batch (the batches so far stay
+ * listed) and an alarm is cleared, for when the cause was found and fixed during the pause.
+ */
+export const resumeWatchRequestSchema = z.object({ restart: z.boolean().default(false) });
+export type ResumeWatchRequest = z.input<typeof resumeWatchRequestSchema>;
+
 /** A share's anytime-valid confidence sequence after a look, beside the hypothesis's share. */
 export const watchShareSchema = z.object({
   label: z.string(),
@@ -190,7 +198,7 @@ export const watchSchema = z.object({
   alarm: z.boolean(),
   alertState: watchAlertStateSchema,
   batchCount: z.number().int(),
-  /** Observations over every batch so far. */
+  /** Observations the sequential test has taken in (since its last restart). */
   n: z.number().int(),
   sequentialP: z.number().describe('the anytime-valid p-value after the latest batch (1 before any batch; never increases)'),
   lastBatchAt: z.string().nullable().describe('when the latest batch was taken in'),
@@ -326,7 +334,8 @@ export const watchAlertSchema = z.object({
   id: z.number().int(),
   watchId: z.number().int(),
   kind: alertKindSchema,
-  batchId: z.number().int(),
+  /** The batch that changed the state; null when a restart cleared the alarm. */
+  batchId: z.number().int().nullable(),
   sequentialP: z.number(),
   createdAt: z.string(),
   acknowledgedBy: personRefSchema.nullable(),
@@ -349,7 +358,7 @@ export const webhookPayloadSchema = z.object({
   event: z.enum(['watch.alarm', 'watch.cleared']),
   alertId: z.number().int(),
   watch: z.object({ id: z.number().int(), name: z.string(), studyId: z.number().int(), url: z.string() }),
-  batch: z.object({ id: z.number().int(), periodStart: z.string(), periodEnd: z.string(), cumulativeN: z.number().int() }),
+  batch: z.object({ id: z.number().int(), periodStart: z.string(), periodEnd: z.string(), cumulativeN: z.number().int() }).nullable(),
   sequentialP: z.number(),
   alpha: z.number(),
   shares: z.array(watchShareSchema),
