@@ -1,0 +1,79 @@
+import { HttpClient, HttpParams } from '@angular/common/http';
+import { inject, Injectable } from '@angular/core';
+import type {
+  AcknowledgeAlertRequest,
+  Connection,
+  CreateWatchRequest,
+  ListWatchesQuery,
+  Page,
+  UpdateWatchRequest,
+  Watch,
+  WatchAlert,
+  WatchBatch,
+  WatchDetail,
+} from '@tallyfit/contracts';
+import type { Observable } from 'rxjs';
+import { pageHandlesErrors } from '../notify/page-handles-errors';
+
+/** Watches over the API: list, read, create and change one, pause and resume it, its batches and alerts. */
+@Injectable({ providedIn: 'root' })
+export class WatchesApi {
+  private readonly http = inject(HttpClient);
+
+  list(query: ListWatchesQuery = {}): Observable<Page<Watch>> {
+    let params = new HttpParams();
+    for (const [key, value] of Object.entries(query)) {
+      if (value !== undefined && value !== null) params = params.set(key, String(value));
+    }
+    return this.http.get<Page<Watch>>('/api/v1/watches', { params, context: pageHandlesErrors() });
+  }
+
+  get(id: number): Observable<WatchDetail> {
+    return this.http.get<WatchDetail>(`/api/v1/watches/${id}`, { context: pageHandlesErrors() });
+  }
+
+  /** The form shows a refusal itself, next to the fields. */
+  create(request: CreateWatchRequest): Observable<WatchDetail> {
+    return this.http.post<WatchDetail>('/api/v1/watches', request, { context: pageHandlesErrors() });
+  }
+
+  update(id: number, request: UpdateWatchRequest): Observable<WatchDetail> {
+    return this.http.patch<WatchDetail>(`/api/v1/watches/${id}`, request, { context: pageHandlesErrors() });
+  }
+
+  pause(id: number): Observable<Watch> {
+    return this.http.post<Watch>(`/api/v1/watches/${id}/pause`, {}, { context: pageHandlesErrors() });
+  }
+
+  /** `restart` begins a fresh sequential test from the next batch, clearing a standing alarm. */
+  resume(id: number, restart: boolean): Observable<Watch> {
+    return this.http.post<Watch>(`/api/v1/watches/${id}/resume`, { restart }, { context: pageHandlesErrors() });
+  }
+
+  /** Batches, newest first. */
+  batches(id: number, page = 1, pageSize = 100): Observable<Page<WatchBatch>> {
+    return this.http.get<Page<WatchBatch>>(`/api/v1/watches/${id}/batches`, {
+      params: new HttpParams().set('page', page).set('pageSize', pageSize),
+      context: pageHandlesErrors(),
+    });
+  }
+
+  /** Alerts, newest first, each with its deliveries. */
+  alerts(id: number, page = 1, pageSize = 25): Observable<Page<WatchAlert>> {
+    return this.http.get<Page<WatchAlert>>(`/api/v1/watches/${id}/alerts`, {
+      params: new HttpParams().set('page', page).set('pageSize', pageSize),
+      context: pageHandlesErrors(),
+    });
+  }
+
+  acknowledge(watchId: number, alertId: number, request: AcknowledgeAlertRequest): Observable<WatchAlert> {
+    return this.http.post<WatchAlert>(`/api/v1/watches/${watchId}/alerts/${alertId}/acknowledge`, request, {
+      context: pageHandlesErrors(),
+    });
+  }
+
+  /** The team databases a scheduled query can read from. */
+  connections(): Observable<Connection[]> {
+    return this.http.get<Connection[]>('/api/v1/connections', { context: pageHandlesErrors() });
+  }
+}
