@@ -152,35 +152,42 @@ export async function getReadableAnalysis(db: Knex, caller: User, id: number): P
 export async function createAnalysis(db: Knex, engine: EngineRunner, author: User, input: NewAnalysis): Promise<AnalysisRecord> {
   if (input.studyId !== undefined) await requireStudyContributor(db, author, input.studyId);
   const result = await engine.analyze(input.spec);
-  const id = await db.transaction(async (trx) => {
-    const [row] = await trx('analyses')
-      .insert({
-        title: input.title,
-        notes: input.notes ?? null,
-        author_id: author.id,
-        study_id: input.studyId ?? null,
-        dataset_id: input.datasetId ?? null,
-        status: 'draft',
-        version: 1,
-        is_latest: true,
-        ...resultColumns(input.spec, result),
-        updated_at: now(trx),
-      })
-      .returning('id');
-    const newId = insertedId(row);
-    await trx('analyses').where({ id: newId }).update({ series_id: newId });
-    await recordAudit(trx, {
-      actorId: author.id,
-      action: 'create',
-      entityType: 'analysis',
-      entityId: newId,
-      studyId: input.studyId ?? null,
-      summary: `ran analysis "${input.title}"`,
-      after: { title: input.title, studyId: input.studyId ?? null, datasetId: input.datasetId ?? null, p: result.conclusion.p },
-    });
-    return newId;
-  });
+  const id = await db.transaction((trx) => storeAnalysis(trx, author, input, result));
   return getAnalysisById(db, id);
+}
+
+/**
+ * Stores an analysis the engine has already run, with its audit event, inside the caller's
+ * transaction (so a watch's batch and its analysis are stored together or not at all). The caller
+ * has checked that the author may add work to the study. Answers the new analysis's id.
+ */
+export async function storeAnalysis(trx: Knex.Transaction, author: Pick<User, 'id'>, input: NewAnalysis, result: AnalysisResult): Promise<number> {
+  const [row] = await trx('analyses')
+    .insert({
+      title: input.title,
+      notes: input.notes ?? null,
+      author_id: author.id,
+      study_id: input.studyId ?? null,
+      dataset_id: input.datasetId ?? null,
+      status: 'draft',
+      version: 1,
+      is_latest: true,
+      ...resultColumns(input.spec, result),
+      updated_at: now(trx),
+    })
+    .returning('id');
+  const newId = insertedId(row);
+  await trx('analyses').where({ id: newId }).update({ series_id: newId });
+  await recordAudit(trx, {
+    actorId: author.id,
+    action: 'create',
+    entityType: 'analysis',
+    entityId: newId,
+    studyId: input.studyId ?? null,
+    summary: `ran analysis "${input.title}"`,
+    after: { title: input.title, studyId: input.studyId ?? null, datasetId: input.datasetId ?? null, p: result.conclusion.p },
+  });
+  return newId;
 }
 
 const SORT_COLUMNS: Record<string, string> = {
