@@ -1,5 +1,5 @@
 import type { WatchDetail } from '@tallyfit/contracts';
-import { createRequestFrom, draftFromWatch, labelsFrom, nextRuns, updateRequestFrom, type WatchDraft } from './watch-draft';
+import { createRequestFrom, draftFromWatch, hypothesisWords, labelsFrom, nextRuns, updateRequestFrom, type WatchDraft } from './watch-draft';
 
 const draft = (change: Partial<WatchDraft> = {}): WatchDraft => ({
   studyId: 4,
@@ -108,5 +108,11 @@ describe('the watch form', () => {
     // 06:00 in Oslo in winter (UTC+1) is 05:00 UTC.
     expect(runs?.map((run) => run.toISOString())).toEqual(['2026-12-03T05:00:00.000Z', '2026-12-04T05:00:00.000Z']);
     expect(nextRuns('every hour', '')).toBeNull();
+  });
+
+  it('says a fixed hypothesis in words', () => {
+    expect(hypothesisWords({ kind: 'equal' }, ['a', 'b'])).toBe('Every category equally likely.');
+    expect(hypothesisWords({ kind: 'proportions', values: [0.6, 0.4] }, ['a', 'b'])).toBe('Shares: a 0.6, b 0.4.');
+    expect(hypothesisWords({ kind: 'ratio', values: [3, 1] }, ['dominant', 'recessive'])).toBe('The ratio 3:1 across dominant, recessive.');
   });
 });

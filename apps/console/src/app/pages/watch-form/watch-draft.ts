@@ -143,6 +143,20 @@ export function nextRuns(schedule: string, timezone: string, count = 3, after = 
   }
 }
 
+/** A stored hypothesis in words, for a watch whose hypothesis is fixed. */
+export function hypothesisWords(hypothesis: Hypothesis, labels: readonly string[]): string {
+  switch (hypothesis.kind) {
+    case 'equal':
+      return 'Every category equally likely.';
+    case 'proportions':
+      return `Shares: ${labels.map((label, i) => `${label} ${hypothesis.values[i]}`).join(', ')}.`;
+    case 'ratio':
+      return `The ratio ${hypothesis.values.join(':')} across ${labels.join(', ')}.`;
+    default:
+      return `A ${hypothesis.kind} hypothesis.`;
+  }
+}
+
 // Missing study or connection ids are said in plain words above; the schema's id messages would repeat them.
 function idIssue(path: readonly PropertyKey[]): boolean {
   return path[0] === 'studyId' || (path[0] === 'feed' && path[1] === 'connectionId');
