@@ -4,7 +4,7 @@ const labels = (items: { label: string }[]) => items.map((item) => item.label);
 
 describe('navigation by role', () => {
   it('offers a viewer only places to read', () => {
-    expect(labels(visibleTo(MAIN_NAV, 'viewer'))).toEqual(['Studies', 'History', 'My analyses']);
+    expect(labels(visibleTo(MAIN_NAV, 'viewer'))).toEqual(['Studies', 'History', 'Watches', 'My analyses']);
     expect(visibleTo(ADMIN_NAV, 'viewer')).toEqual([]);
   });
 

@@ -14,6 +14,7 @@ export interface NavItem {
 export const MAIN_NAV: readonly NavItem[] = [
   { path: '/studies', label: 'Studies', icon: 'folder_open' },
   { path: '/history', label: 'History', icon: 'history' },
+  { path: '/watches', label: 'Watches', icon: 'monitor_heart' },
   { path: '/analyses', label: 'My analyses', icon: 'list_alt', exact: true },
   { path: '/analyses/new', label: 'New analysis', icon: 'add_chart', roles: ['admin', 'analyst'] },
   // Planning future checks is for those who run or direct them; viewers only read results.

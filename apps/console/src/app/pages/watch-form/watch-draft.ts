@@ -10,6 +10,7 @@ import {
   type UpdateWatchRequest,
   type WatchDetail,
   type WatchFeed,
+  type WebhookSettingsRequest,
 } from '@tallyfit/contracts';
 import type { Hypothesis } from '@tallyfit/engine';
 import { Cron } from 'croner';
@@ -60,7 +61,7 @@ function feedFrom(draft: WatchDraft): WatchFeed {
   }
 }
 
-function webhookFrom(draft: WatchDraft): CreateWatchRequest['webhook'] {
+function webhookFrom(draft: WatchDraft): WebhookSettingsRequest | null {
   if (!draft.webhookUrl.trim()) return null;
   return { url: draft.webhookUrl.trim(), ...(draft.webhookSecret ? { secret: draft.webhookSecret } : {}) };
 }
