@@ -18,7 +18,7 @@ async function main(): Promise<void> {
   const engine = createEnginePool({ workerFile: join(__dirname, 'engine-worker.js'), timeLimitMs: config.engineTimeLimitMs });
   // Without SMTP_URL a local SMTP stand-in receives the mail; admins read it in the outbox.
   const mail = await startMailService({ smtpUrl: config.smtpUrl, from: config.mailFrom });
-  const { app } = createApp({ config, db, engine, mail, logger });
+  const { app, watches } = createApp({ config, db, engine, mail, logger });
 
   const server = app.listen(config.port, config.host, () => {
     const address = server.address();
@@ -36,7 +36,7 @@ async function main(): Promise<void> {
   });
 
   const shutdown = () => {
-    server.close(() => void Promise.all([engine.close(), mail.stop(), db.destroy()]).then(() => process.exit(0)));
+    server.close(() => void watches.stop().then(() => Promise.all([engine.close(), mail.stop(), db.destroy()])).then(() => process.exit(0)));
   };
   process.on('SIGINT', shutdown);
   process.on('SIGTERM', shutdown);

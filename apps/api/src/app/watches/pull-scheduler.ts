@@ -34,7 +34,7 @@ export interface SchedulerDeps {
 const scheduleKey = (row: WatchRow) => `${row.schedule}|${row.timezone ?? 'UTC'}`;
 const cronOf = (row: WatchRow, callback?: (self: Cron) => void) =>
   callback
-    ? new Cron(row.schedule ?? '', { timezone: row.timezone ?? 'UTC', protect: true }, callback)
+    ? new Cron(row.schedule ?? '', { timezone: row.timezone ?? 'UTC', protect: true, unref: true }, callback)
     : new Cron(row.schedule ?? '', { timezone: row.timezone ?? 'UTC', paused: true });
 
 /**

@@ -51,12 +51,12 @@ function webhookColumns(key: Buffer, webhook: WebhookSettingsRequest | null | un
 }
 
 /** What the audit trail keeps of a watch (never the webhook secret). */
-const auditView = (row: Pick<WatchRow, 'name' | 'feed_kind' | 'alpha' | 'state' | 'webhook_url'>) => ({
+const auditView = (row: { name: string; feed_kind: string; alpha: number; state: string; webhook_url?: string | null }) => ({
   name: row.name,
   feed: row.feed_kind,
   alpha: row.alpha,
   state: row.state,
-  webhook: row.webhook_url,
+  webhook: row.webhook_url ?? null,
 });
 
 export async function getWatchRow(db: Knex | Knex.Transaction, id: number): Promise<WatchRow> {
@@ -92,7 +92,7 @@ export async function createWatch(ctx: WatchContext, caller: User, request: Crea
       entityId: newId,
       studyId: request.studyId,
       summary: `created watch "${request.name}" (${request.feed.kind} feed)`,
-      after: { ...auditView({ ...columns, webhook_url: columns.webhook_url ?? null }), labels: request.labels, hypothesis: request.hypothesis.kind },
+      after: { ...auditView(columns), labels: request.labels, hypothesis: request.hypothesis.kind },
     });
     return newId;
   });
@@ -177,7 +177,7 @@ export async function updateWatch(ctx: WatchContext, caller: User, id: number, r
       studyId: before.study_id,
       summary: `edited watch "${request.name ?? before.name}"`,
       before: auditView(before),
-      after: auditView({ ...before, ...changes } as WatchRow),
+      after: auditView({ ...before, ...changes }),
     });
   });
   ctx.scheduleChanged(id);
