@@ -4,8 +4,10 @@ import type {
   AcknowledgeAlertRequest,
   Connection,
   CreateWatchRequest,
+  DatasetBatchRequest,
   ListWatchesQuery,
   Page,
+  PushBatchResponse,
   UpdateWatchRequest,
   Watch,
   WatchAlert,
@@ -56,6 +58,11 @@ export class WatchesApi {
       params: new HttpParams().set('page', page).set('pageSize', pageSize),
       context: pageHandlesErrors(),
     });
+  }
+
+  /** Appends a dataset uploaded to the watch's study as one batch. */
+  appendDataset(id: number, request: DatasetBatchRequest): Observable<PushBatchResponse> {
+    return this.http.post<PushBatchResponse>(`/api/v1/watches/${id}/dataset-batches`, request, { context: pageHandlesErrors() });
   }
 
   /** Alerts, newest first, each with its deliveries. */

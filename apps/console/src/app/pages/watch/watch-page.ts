@@ -20,6 +20,7 @@ import { failureMessage, LOADING, loadedValue, toLoadState } from '../../core/lo
 import { WatchStateChip } from '../../shared/watch-state/watch-state-chip';
 import { ALERT_STATE_WORDS, BATCH_SOURCE_WORDS, FEED_WORDS, WATCH_STATE_MEANINGS, WATCH_STATE_WORDS } from '../../shared/watch-state/watch-words';
 import { AcknowledgeDialog, type AcknowledgeDialogData } from './acknowledge-dialog';
+import { UploadBatchPanel } from './upload-batch-panel';
 import { WatchTimeline } from './watch-timeline';
 import { alarmToAcknowledge, deliveryText, pushExample, watchHeadline } from './watch-view';
 
@@ -42,7 +43,7 @@ interface WatchView {
  */
 @Component({
   selector: 'tf-watch-page',
-  imports: [DatePipe, DecimalPipe, PercentPipe, RouterLink, MatButtonModule, MatIconModule, MatPaginatorModule, MatProgressBarModule, WatchStateChip, WatchTimeline],
+  imports: [DatePipe, DecimalPipe, PercentPipe, RouterLink, MatButtonModule, MatIconModule, MatPaginatorModule, MatProgressBarModule, UploadBatchPanel, WatchStateChip, WatchTimeline],
   templateUrl: './watch-page.html',
   styleUrl: './watch-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -119,6 +120,10 @@ export class WatchPage {
 
   private fetch(id: number): Observable<WatchView> {
     return forkJoin({ watch: this.api.get(id), batches: this.api.batches(id, 1, BATCHES_SHOWN), alerts: this.api.alerts(id) });
+  }
+
+  protected reload(): void {
+    this.reloads.update((count) => count + 1);
   }
 
   protected onTablePage(event: PageEvent): void {
