@@ -13,7 +13,7 @@ async function main(): Promise<void> {
   const logger = pino({ level: config.logLevel });
   const db = openDatabase(config);
   await migrateToLatest(db);
-  const signIns = config.seedDemo ? await seedDemo(db, config.dataDir, config.demoPassword) : [];
+  const signIns = config.seedDemo ? await seedDemo(db, config.dataDir, config.demoPassword, config.publicUrl) : [];
   // The worker is built beside main.js (see additionalEntryPoints in apps/api/project.json).
   const engine = createEnginePool({ workerFile: join(__dirname, 'engine-worker.js'), timeLimitMs: config.engineTimeLimitMs });
   // Without SMTP_URL a local SMTP stand-in receives the mail; admins read it in the outbox.
