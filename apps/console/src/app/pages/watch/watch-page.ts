@@ -97,7 +97,6 @@ export class WatchPage {
   protected readonly busy = signal<string | null>(null);
   protected readonly problem = signal<string | null>(null);
 
-  protected readonly stateWords = WATCH_STATE_WORDS;
   protected readonly stateMeanings = WATCH_STATE_MEANINGS;
   protected readonly alertWords = ALERT_STATE_WORDS;
   protected readonly feedWords = FEED_WORDS;

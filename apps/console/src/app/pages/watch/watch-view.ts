@@ -15,16 +15,12 @@ export function furthestCategory(shares: readonly WatchShare[]): string | null {
   return furthest?.label ?? null;
 }
 
-/** What the watch says so far, in one sentence. */
-export function watchHeadline(watch: Pick<Watch, 'state' | 'alarm' | 'batchCount' | 'n' | 'sequentialP' | 'alpha'>): string {
+/** What the sequential test says so far, in one sentence of figures (the state's meaning is said beside it). */
+export function watchHeadline(watch: Pick<Watch, 'alarm' | 'batchCount' | 'n' | 'sequentialP' | 'alpha'>): string {
   if (watch.batchCount === 0) return 'No batches yet: the first one starts the sequential test.';
   const so = `After ${plural(watch.batchCount, 'batch', 'batches')} (${plural(watch.n, 'observation', 'observations')})`;
   const p = `the sequential p is ${formatP(watch.sequentialP).replace(/^= /, '')}`;
-  const verdict = watch.alarm
-    ? `below alpha ${watch.alpha}: the counts have drifted from what was expected.`
-    : `not below alpha ${watch.alpha}: no sign so far that the counts differ from what was expected.`;
-  const paused = watch.state === 'paused' ? ' The watch is paused.' : '';
-  return `${so} ${p}, ${verdict}${paused}`;
+  return `${so} ${p}, ${watch.alarm ? 'below' : 'not below'} alpha ${watch.alpha}.`;
 }
 
 /** The alarm a lead can acknowledge: the newest alert, when it is an alarm no one has acknowledged. */

@@ -9,9 +9,9 @@ export const WATCH_STATE_WORDS: Record<WatchState, string> = {
 
 /** What each state means, for a hint beside the state. */
 export const WATCH_STATE_MEANINGS: Record<WatchState, string> = {
-  holding: 'The counts so far are consistent with what was expected.',
-  alarm: 'The counts have drifted from what was expected: the sequential p fell below alpha.',
-  paused: 'No batches are taken in and scheduled queries do not run.',
+  holding: 'No sign so far that the counts differ from what was expected.',
+  alarm: 'The counts have drifted from what was expected.',
+  paused: 'Paused: no batches are taken in and scheduled queries do not run.',
 };
 
 export const ALERT_STATE_WORDS: Record<WatchAlertState, string> = {
