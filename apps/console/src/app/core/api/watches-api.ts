@@ -2,7 +2,6 @@ import { HttpClient, HttpParams } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import type {
   AcknowledgeAlertRequest,
-  Connection,
   CreateWatchRequest,
   DatasetBatchRequest,
   ListWatchesQuery,
@@ -77,10 +76,5 @@ export class WatchesApi {
     return this.http.post<WatchAlert>(`/api/v1/watches/${watchId}/alerts/${alertId}/acknowledge`, request, {
       context: pageHandlesErrors(),
     });
-  }
-
-  /** The team databases a scheduled query can read from. */
-  connections(): Observable<Connection[]> {
-    return this.http.get<Connection[]>('/api/v1/connections', { context: pageHandlesErrors() });
   }
 }

@@ -15,6 +15,7 @@ import type { WatchDetail } from '@tallyfit/contracts';
 import type { Hypothesis } from '@tallyfit/engine';
 import { catchError, map, of, switchMap, type Observable } from 'rxjs';
 import { apiErrorMessage } from '../../core/api/api-error-message';
+import { ConnectionsApi } from '../../core/api/connections-api';
 import { StudiesApi } from '../../core/api/studies-api';
 import { WatchesApi } from '../../core/api/watches-api';
 import { LOADING, toLoadState, type LoadState } from '../../core/load/load-state';
@@ -86,10 +87,12 @@ export class WatchFormPage {
     { initialValue: [] },
   );
   protected readonly connections = toSignal(
-    this.api.connections().pipe(
-      map((list) => ({ list, problem: null as string | null })),
-      catchError((error: unknown) => of({ list: [], problem: apiErrorMessage(error) })),
-    ),
+    inject(ConnectionsApi)
+      .list()
+      .pipe(
+        map((list) => ({ list, problem: null as string | null })),
+        catchError((error: unknown) => of({ list: [], problem: apiErrorMessage(error) })),
+      ),
     { initialValue: { list: [], problem: null } },
   );
 
