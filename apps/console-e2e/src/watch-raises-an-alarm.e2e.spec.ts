@@ -2,6 +2,7 @@ import { createHmac, timingSafeEqual } from 'node:crypto';
 import { createServer, type IncomingHttpHeaders, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { seriousAxeViolations } from './support/axe-check';
 import { launchBrowser, screenshot } from './support/browser';
 import { signInAs } from './support/console-sign-in';
 import { DemoApi } from './support/demo-api';
@@ -138,6 +139,7 @@ describe('an analyst sets up a watch, a pipeline feeds it, it raises an alarm an
     await page.getByTestId('shares-timeline').locator('svg').waitFor();
     await settle(page);
     await screenshot(page, 'watch-alarm-1280');
+    await expect(seriousAxeViolations(page)).resolves.toEqual([]);
     await page.setViewportSize({ width: 390, height: 844 });
     await settle(page);
     await screenshot(page, 'watch-alarm-390');
@@ -151,6 +153,7 @@ describe('an analyst sets up a watch, a pipeline feeds it, it raises an alarm an
     await page.setViewportSize({ width: 1280, height: 800 });
     await settle(page);
     await screenshot(page, 'watches-1280');
+    await expect(seriousAxeViolations(page)).resolves.toEqual([]);
   });
 
   it('e-mails the alarm through the local mail stand-in, where an admin reads it', async () => {
