@@ -115,7 +115,7 @@ export function startAlertDispatcher(deps: DispatcherDeps): AlertDispatcher {
         const attempts = delivery.attempts + 1;
         try {
           await attempt(delivery);
-          await db('alert_deliveries').where({ id: delivery.id }).update({ status: 'delivered', attempts, delivered_at: now(db), last_error: null, claimed_until: null });
+          await db('alert_deliveries').where({ id: delivery.id }).update({ status: 'delivered', attempts, delivered_at: now(db), claimed_until: null });
         } catch (error) {
           const reason = error instanceof Error ? error.message : String(error);
           const finalTry = attempts >= policy.maxAttempts;

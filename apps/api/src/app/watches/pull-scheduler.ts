@@ -9,6 +9,9 @@ import { openSourceDatabase } from './source-connections.service';
 import type { WatchContext } from './watch-context';
 import { selectWatches, type WatchRow } from './watch-rows';
 
+/** Longer than a pull can take (statement timeout, engine time and storing), with room to spare. */
+const STALE_CLAIM_MS = 5 * 60_000;
+
 export type TickOutcome = 'batch' | 'empty' | 'error' | 'skipped' | 'taken';
 
 export interface PullScheduler {
@@ -69,6 +72,7 @@ export function startPullScheduler(deps: SchedulerDeps): PullScheduler {
       .returning('id');
     if (lease === undefined) return 'taken';
     const tickId = typeof lease === 'object' ? Number((lease as { id: number }).id) : Number(lease);
+    await earlierTicksFinished(watchId, tickIso);
     const watch: WatchRow | undefined = await selectWatches(db).where('watches.id', watchId).first();
     if (!watch || watch.feed_kind !== 'pull' || watch.state === 'paused' || !watch.connection_id || !watch.pull_query) {
       await finishTick(tickId, 'skipped', null, null);
@@ -107,6 +111,25 @@ export function startPullScheduler(deps: SchedulerDeps): PullScheduler {
       await db('watches').where({ id: watchId }).update({ last_error: reason, last_error_at: dbTime(db, new Date().toISOString()) });
       await finishTick(tickId, 'error', reason, null);
       return 'error';
+    }
+  }
+
+  /**
+   * Each pull starts where the last one ended, so a tick waits while an earlier tick of the same
+   * watch is still running on any server (a slow query overlapping the next scheduled time). A
+   * claim older than STALE_CLAIM_MS belongs to a server that stopped mid-pull and is not waited for.
+   */
+  async function earlierTicksFinished(watchId: number, tickIso: string): Promise<void> {
+    const deadline = Date.now() + STALE_CLAIM_MS;
+    while (Date.now() < deadline && !stopped) {
+      const running = await db('watch_pull_ticks')
+        .where({ watch_id: watchId })
+        .where('tick_time', '<', tickIso)
+        .whereNull('finished_at')
+        .where('claimed_at', '>', dbTime(db, new Date(Date.now() - STALE_CLAIM_MS).toISOString()))
+        .first('id');
+      if (!running) return;
+      await new Promise((resolve) => setTimeout(resolve, 100));
     }
   }
 

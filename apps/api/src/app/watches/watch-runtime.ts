@@ -29,27 +29,27 @@ export interface WatchRuntimeOptions {
 
 export function startWatchRuntime(options: WatchRuntimeOptions): WatchRuntime {
   const { db, engine, mail, config, logger } = options;
-  let scheduler: PullScheduler | undefined;
   const dispatcher = startAlertDispatcher({ db, mail, secretKey: config.secretKey, logger, policy: options.delivery });
   const context: WatchContext = {
     db,
     engine,
     secretKey: config.secretKey,
     publicUrl: config.publicUrl,
-    scheduleChanged: () => void scheduler?.sync().catch((error: unknown) => logger.error({ err: error }, 'schedules could not be re-read')),
+    // The scheduler is created just below; nothing calls this before then.
+    scheduleChanged: () => void scheduler.sync().catch((error: unknown) => logger.error({ err: error }, 'schedules could not be re-read')),
     deliveriesQueued: () => dispatcher.kick(),
   };
-  scheduler = startPullScheduler({ ctx: context, logger, syncMs: options.scheduleSyncMs });
+  const scheduler = startPullScheduler({ ctx: context, logger, syncMs: options.scheduleSyncMs });
   return {
     context,
     scheduler,
     dispatcher,
     idle: async () => {
-      await scheduler?.idle();
+      await scheduler.idle();
       await dispatcher.idle();
     },
     stop: async () => {
-      await scheduler?.stop();
+      await scheduler.stop();
       await dispatcher.stop();
     },
   };

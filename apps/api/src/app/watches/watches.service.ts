@@ -1,6 +1,5 @@
 import type { Knex } from 'knex';
 import type {
-  CreateWatchRequest,
   ListWatchesFilters,
   Page,
   UpdateWatchRequest,
