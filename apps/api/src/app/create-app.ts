@@ -24,6 +24,8 @@ import { apiNotFound, errorHandler } from './http/error-handler';
 import { reviewsRoutes } from './reviews/reviews.routes';
 import { studiesRoutes } from './studies/studies.routes';
 import { API_PREFIX, mountRoutes, type RouteDefinition } from './http/route-table';
+import { sourceConnectionsRoutes } from './watches/source-connections.routes';
+import { watchesRoutes } from './watches/watches.routes';
 import { startWatchRuntime, type WatchRuntime, type WatchRuntimeOptions } from './watches/watch-runtime';
 
 export interface AppContext {
@@ -61,6 +63,8 @@ function allRoutes({ config, db, engine, mail }: AppContext, watches: WatchRunti
     ...datasetsRoutes(db, config),
     ...reportsRoutes(db, config),
     ...sharesRoutes(db, config, mail),
+    ...watchesRoutes(watches.context, config.dataDir),
+    ...sourceConnectionsRoutes(db, config.secretKey),
   ];
   routes.push(...openApiRoutes(() => routes));
   return routes;

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { Cron } from 'croner';
 import { hypothesisSchema } from '@tallyfit/engine';
 import { countSelectionSchema } from './datasets';
-import { booleanQueryText, pageQueryFields } from './pagination';
+import { booleanQueryText, idText, pageQueryFields } from './pagination';
 import { personRefSchema } from './people-ref';
 
 /**
@@ -219,7 +219,7 @@ export type WatchDetail = z.infer<typeof watchDetailSchema>;
 
 export const listWatchesQuerySchema = z.object({
   ...pageQueryFields(25),
-  studyId: z.coerce.number().int().positive({ message: 'studyId must be a positive whole number' }).optional(),
+  studyId: idText('studyId').optional(),
   state: watchStateSchema.optional(),
   feed: z.enum(['push', 'pull', 'upload'], { message: 'feed must be one of push, pull, upload' }).optional(),
   /** Only watches whose latest alarm waits for acknowledgement. */

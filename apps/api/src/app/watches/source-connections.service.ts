@@ -164,6 +164,8 @@ export async function openSourceDatabase(db: Knex, key: Buffer, id: number): Pro
       application_name: 'tallyfit-watch',
     },
     pool: { min: 0, max: 1 },
+    // Failures reach the caller as errors (and the watch's lastError); knex need not print them too.
+    log: { warn: () => undefined, error: () => undefined, deprecate: () => undefined, debug: () => undefined },
   });
 }
 

@@ -180,7 +180,7 @@ describe('watches', () => {
     );
     expect(delivered).toEqual([
       expect.objectContaining({ channel: 'email', target: 'analyst@test.local', status: 'delivered', attempts: 1 }),
-      expect.objectContaining({ channel: 'webhook', target: receiver.url, status: 'delivered', attempts: 2 }),
+      expect.objectContaining({ channel: 'webhook', target: receiver.url, status: 'delivered', attempts: 2, lastError: 'the receiver answered HTTP 503' }),
     ]);
     const posts = receiver.received.filter((post) => (JSON.parse(post.body) as WebhookPayload).watch.id === watch.id);
     expect(posts.map((post) => post.answered)).toEqual([503, 204]);

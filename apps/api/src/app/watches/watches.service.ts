@@ -13,10 +13,9 @@ import { createWatchRequestSchema } from '@tallyfit/contracts';
 import { recordAudit } from '../audit/audit.service';
 import { insertedId, now } from '../http/db-time';
 import { conflict, unprocessable } from '../http/http-error';
-import { requireStudyContributor } from '../studies/studies.service';
 import { seal } from './secret-box';
 import { beginSequentialTest } from './sequential-test';
-import { getChangeableWatchRow, getPausableWatchRow, getReadableWatchRow, scopeWatchesToReader } from './watch-access';
+import { getChangeableWatchRow, getPausableWatchRow, getReadableWatchRow, requireWatchEditor, scopeWatchesToReader } from './watch-access';
 import type { WatchContext } from './watch-context';
 import { clearAlarmByRestart } from './watch-alerts.service';
 import { selectWatches, toWatch, toWatchDetail, watchHypothesis, watchLabels, type WatchRow } from './watch-rows';
@@ -64,7 +63,7 @@ export async function getWatchRow(db: Knex | Knex.Transaction, id: number): Prom
 
 export async function createWatch(ctx: WatchContext, caller: User, request: CreateWatch): Promise<WatchDetail> {
   const { db } = ctx;
-  await requireStudyContributor(db, caller, request.studyId);
+  await requireWatchEditor(db, caller, request.studyId);
   await requireConnection(db, request.feed);
   const sequentialState = beginSequentialTest(request.labels, request.hypothesis, request.alpha);
   const id = await db.transaction(async (trx) => {
