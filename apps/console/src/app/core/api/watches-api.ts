@@ -13,8 +13,14 @@ import type {
   WatchBatch,
   WatchDetail,
 } from '@tallyfit/contracts';
-import type { Observable } from 'rxjs';
+import { forkJoin, map, of, switchMap, type Observable } from 'rxjs';
 import { pageHandlesErrors } from '../notify/page-handles-errors';
+
+/** The latest batches of a watch, oldest first, and how many it has in all. */
+export interface LatestBatches {
+  items: WatchBatch[];
+  total: number;
+}
 
 /** Watches over the API: list, read, create and change one, pause and resume it, its batches and alerts. */
 @Injectable({ providedIn: 'root' })
@@ -42,16 +48,16 @@ export class WatchesApi {
     return this.http.patch<WatchDetail>(`/api/v1/watches/${id}`, request, { context: pageHandlesErrors() });
   }
 
-  pause(id: number): Observable<Watch> {
-    return this.http.post<Watch>(`/api/v1/watches/${id}/pause`, {}, { context: pageHandlesErrors() });
+  pause(id: number): Observable<WatchDetail> {
+    return this.http.post<WatchDetail>(`/api/v1/watches/${id}/pause`, {}, { context: pageHandlesErrors() });
   }
 
   /** `restart` begins a fresh sequential test from the next batch, clearing a standing alarm. */
-  resume(id: number, restart: boolean): Observable<Watch> {
-    return this.http.post<Watch>(`/api/v1/watches/${id}/resume`, { restart }, { context: pageHandlesErrors() });
+  resume(id: number, restart: boolean): Observable<WatchDetail> {
+    return this.http.post<WatchDetail>(`/api/v1/watches/${id}/resume`, { restart }, { context: pageHandlesErrors() });
   }
 
-  /** Batches, newest first. */
+  /** One page of batches, oldest first (the order of the sequential test's looks). */
   batches(id: number, page = 1, pageSize = 100): Observable<Page<WatchBatch>> {
     return this.http.get<Page<WatchBatch>>(`/api/v1/watches/${id}/batches`, {
       params: new HttpParams().set('page', page).set('pageSize', pageSize),
@@ -59,9 +65,23 @@ export class WatchesApi {
     });
   }
 
+  /** The latest `count` batches (at most 100), oldest first, and how many there are in all. */
+  latestBatches(id: number, count = 100): Observable<LatestBatches> {
+    return this.batches(id, 1, count).pipe(
+      switchMap((first) => {
+        if (first.total <= count) return of({ items: first.items, total: first.total });
+        // The newest batches sit on the last page, which may be short: read the one before it too.
+        const last = Math.ceil(first.total / count);
+        return forkJoin([this.batches(id, last - 1, count), this.batches(id, last, count)]).pipe(
+          map(([before, end]) => ({ items: [...before.items, ...end.items].slice(-count), total: end.total })),
+        );
+      }),
+    );
+  }
+
   /** Appends a dataset uploaded to the watch's study as one batch. */
   appendDataset(id: number, request: DatasetBatchRequest): Observable<PushBatchResponse> {
-    return this.http.post<PushBatchResponse>(`/api/v1/watches/${id}/dataset-batches`, request, { context: pageHandlesErrors() });
+    return this.http.post<PushBatchResponse>(`/api/v1/watches/${id}/batches/from-dataset`, request, { context: pageHandlesErrors() });
   }
 
   /** Alerts, newest first, each with its deliveries. */
@@ -72,9 +92,7 @@ export class WatchesApi {
     });
   }
 
-  acknowledge(watchId: number, alertId: number, request: AcknowledgeAlertRequest): Observable<WatchAlert> {
-    return this.http.post<WatchAlert>(`/api/v1/watches/${watchId}/alerts/${alertId}/acknowledge`, request, {
-      context: pageHandlesErrors(),
-    });
+  acknowledge(alertId: number, request: AcknowledgeAlertRequest): Observable<WatchAlert> {
+    return this.http.post<WatchAlert>(`/api/v1/alerts/${alertId}/acknowledge`, request, { context: pageHandlesErrors() });
   }
 }

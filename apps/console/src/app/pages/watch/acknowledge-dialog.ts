@@ -61,7 +61,7 @@ export class AcknowledgeDialog {
     this.busy.set(true);
     this.problem.set(null);
     const note = this.note.value.trim();
-    this.api.acknowledge(this.data.watchId, this.data.alert.id, note ? { note } : {}).subscribe({
+    this.api.acknowledge(this.data.alert.id, note ? { note } : {}).subscribe({
       next: (alert) => this.ref.close(alert),
       error: (error: unknown) => {
         this.busy.set(false);

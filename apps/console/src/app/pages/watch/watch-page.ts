@@ -9,12 +9,11 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import type { Page, WatchAlert, WatchBatch, WatchDetail } from '@tallyfit/contracts';
+import { can, type Page, type WatchAlert, type WatchDetail } from '@tallyfit/contracts';
 import { combineLatest, forkJoin, switchMap, timer, type Observable } from 'rxjs';
 import { apiErrorMessage } from '../../core/api/api-error-message';
-import { WatchesApi } from '../../core/api/watches-api';
+import { WatchesApi, type LatestBatches } from '../../core/api/watches-api';
 import { AuthSession } from '../../core/auth/auth-session';
-import { can } from '../../core/auth/permissions';
 import { formatP } from '../../core/format/p-value';
 import { failureMessage, LOADING, loadedValue, toLoadState } from '../../core/load/load-state';
 import { WatchStateChip } from '../../shared/watch-state/watch-state-chip';
@@ -32,7 +31,8 @@ const TABLE_PAGE = 10;
 
 interface WatchView {
   watch: WatchDetail;
-  batches: Page<WatchBatch>;
+  /** the latest batches, oldest first */
+  batches: LatestBatches;
   alerts: Page<WatchAlert>;
 }
 
@@ -76,18 +76,21 @@ export class WatchPage {
     return watch ? watchHeadline(watch) : '';
   });
   /** Batches oldest first, for the charts. */
-  protected readonly timeline = computed(() => [...(this.view()?.batches.items ?? [])].reverse());
+  protected readonly timeline = computed(() => this.view()?.batches.items ?? []);
+  /** Newest first, for the table. */
+  private readonly newestFirst = computed(() => [...this.timeline()].reverse());
   protected readonly tablePage = signal(0);
-  protected readonly tableRows = computed(() => (this.view()?.batches.items ?? []).slice(this.tablePage() * TABLE_PAGE, (this.tablePage() + 1) * TABLE_PAGE));
+  protected readonly tableRows = computed(() => this.newestFirst().slice(this.tablePage() * TABLE_PAGE, (this.tablePage() + 1) * TABLE_PAGE));
   protected readonly tablePageSize = TABLE_PAGE;
   protected readonly alarmWaiting = computed(() => {
     const view = this.view();
     return view ? alarmToAcknowledge(view.watch, view.alerts.items) : null;
   });
 
-  protected readonly canEdit = computed(() => can(this.role(), 'runAnalysis'));
-  protected readonly canPause = computed(() => this.canEdit() || this.role() === 'lead');
-  protected readonly canAcknowledge = computed(() => can(this.role(), 'review'));
+  // By role alone: the API applies the study part of each rule and says so if it refuses.
+  protected readonly canEdit = computed(() => can(this.role(), 'watches.manage'));
+  protected readonly canPause = computed(() => can(this.role(), 'watches.pause'));
+  protected readonly canAcknowledge = computed(() => can(this.role(), 'alerts.acknowledge'));
 
   protected readonly example = computed(() => {
     const watch = this.watch();
@@ -118,7 +121,7 @@ export class WatchPage {
   }
 
   private fetch(id: number): Observable<WatchView> {
-    return forkJoin({ watch: this.api.get(id), batches: this.api.batches(id, 1, BATCHES_SHOWN), alerts: this.api.alerts(id) });
+    return forkJoin({ watch: this.api.get(id), batches: this.api.latestBatches(id, BATCHES_SHOWN), alerts: this.api.alerts(id) });
   }
 
   protected reload(): void {

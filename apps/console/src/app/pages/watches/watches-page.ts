@@ -11,12 +11,11 @@ import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator'
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
-import { WATCH_STATES, type Page, type Watch } from '@tallyfit/contracts';
+import { can, WATCH_STATES, type Page, type Watch } from '@tallyfit/contracts';
 import { catchError, debounceTime, distinctUntilChanged, map, of, switchMap } from 'rxjs';
 import { StudiesApi } from '../../core/api/studies-api';
 import { WatchesApi } from '../../core/api/watches-api';
 import { AuthSession } from '../../core/auth/auth-session';
-import { can } from '../../core/auth/permissions';
 import { failureMessage, LOADING, loadedValue, toLoadState } from '../../core/load/load-state';
 import { WatchStateChip } from '../../shared/watch-state/watch-state-chip';
 import { ALERT_STATE_WORDS, FEED_WORDS, WATCH_STATE_WORDS } from '../../shared/watch-state/watch-words';
@@ -73,7 +72,8 @@ export class WatchesPage {
     { equal: (a, b) => JSON.stringify(a) === JSON.stringify(b) },
   );
   protected readonly filterCount = computed(() => watchesFilterCount(this.view()));
-  protected readonly canCreate = computed(() => can(this.role(), 'runAnalysis'));
+  protected readonly canCreate = computed(() => can(this.role(), 'watches.manage'));
+  protected readonly canConnect = computed(() => can(this.role(), 'connections.manage'));
 
   private readonly loadState = toSignal(
     toObservable(this.view).pipe(switchMap((view) => toLoadState(this.api.list(apiQueryFromWatchesView(view))))),

@@ -22,7 +22,7 @@ describe('the Watches page view', () => {
     const view = watchesViewFromUrl({ page: '2', studyId: '4', state: 'alarm', waiting: 'true', q: ' checkout ' });
     expect(view).toEqual({ page: 2, studyId: 4, state: 'alarm', waiting: true, q: 'checkout' });
     expect(urlFromWatchesView(view)).toEqual({ page: '2', studyId: '4', state: 'alarm', waiting: 'true', q: 'checkout' });
-    expect(apiQueryFromWatchesView(view)).toEqual({ page: 2, pageSize: 25, studyId: 4, state: 'alarm', waiting: 'true', q: 'checkout' });
+    expect(apiQueryFromWatchesView(view)).toEqual({ page: 2, pageSize: 25, studyId: '4', state: 'alarm', waiting: 'true', q: 'checkout' });
     expect(watchesFilterCount(view)).toBe(4);
   });
 

@@ -49,7 +49,7 @@ export function urlFromWatchesView(view: WatchesView): Record<string, string | n
 
 export function apiQueryFromWatchesView(view: WatchesView): ListWatchesQuery {
   const query: ListWatchesQuery = { page: view.page, pageSize: WATCHES_PAGE_SIZE };
-  if (view.studyId !== null) query.studyId = view.studyId;
+  if (view.studyId !== null) query.studyId = String(view.studyId);
   if (view.state !== null) query.state = view.state;
   if (view.waiting) query.waiting = 'true';
   if (view.q !== null) query.q = view.q;
