@@ -65,7 +65,8 @@ describe('an analyst sets up a watch, a pipeline feeds it, it raises an alarm an
 
   beforeAll(async () => {
     [server, browser, receiver] = await Promise.all([startTallyfit(), launchBrowser(), startReceiver(calls)]);
-    analystContext = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    // axe-core is added to the page as a script, which the console's content security policy would refuse.
+    analystContext = await browser.newContext({ viewport: { width: 1280, height: 800 }, bypassCSP: true });
     page = await analystContext.newPage();
   });
 

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
-import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -20,12 +20,12 @@ export interface AcknowledgeDialogData {
   imports: [ReactiveFormsModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatInputModule],
   template: `
     <h2 mat-dialog-title>Acknowledge the alarm on “{{ data.watchName }}”</h2>
-    <form (ngSubmit)="acknowledge()" novalidate>
+    <form [formGroup]="form" (ngSubmit)="acknowledge()" novalidate>
       <mat-dialog-content>
         <p>The alarm stays in the history with your name and note. The watch keeps testing the batches that follow.</p>
         <mat-form-field appearance="outline" class="wide">
           <mat-label>Note</mat-label>
-          <textarea matInput [formControl]="note" rows="4" cdkFocusInitial></textarea>
+          <textarea matInput formControlName="note" rows="4" cdkFocusInitial></textarea>
           <mat-hint>What was found and what is being done, for whoever looks next.</mat-hint>
           @if (note.hasError('maxlength')) {
             <mat-error>At most 2000 characters.</mat-error>
@@ -53,6 +53,7 @@ export class AcknowledgeDialog {
   protected readonly data = inject<AcknowledgeDialogData>(MAT_DIALOG_DATA);
 
   protected readonly note = new FormControl('', { nonNullable: true, validators: [Validators.maxLength(2000)] });
+  protected readonly form = new FormGroup({ note: this.note });
   protected readonly busy = signal(false);
   protected readonly problem = signal<string | null>(null);
 
