@@ -127,7 +127,7 @@ export class WatchFormPage {
   protected readonly feedHints: Record<FeedKind, string> = {
     push: 'A pipeline posts each period’s counts with an API token.',
     pull: 'Tallyfit runs a read-only query against your own database on a schedule.',
-    upload: 'Files uploaded to the study are added as batches.',
+    upload: 'Files added on the watch’s page, one batch each.',
   };
 
   protected readonly errors = signal<string[]>([]);
