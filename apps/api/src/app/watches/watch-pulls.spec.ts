@@ -3,7 +3,7 @@ import { join } from 'node:path';
 import { promisify } from 'node:util';
 import type { User } from '@tallyfit/contracts';
 import { createWatchRequestSchema } from '@tallyfit/contracts';
-import { findUserById } from '../auth/users.service';
+import { findUserById } from '../identity/users.service';
 import { createTestApp, type TestContext } from '../../testing/test-app';
 import { createPostgresSource, testPostgresUrl, type PostgresSource } from '../../testing/postgres-source';
 import { PullQueryError, runPullQuery } from './pull-query';

@@ -208,6 +208,21 @@ describe('watches', () => {
     expect(history.map((item: { kind: string }) => item.kind)).toEqual(['cleared', 'alarm']);
   }, 60_000);
 
+  it('resumes in the state its test says, lists waiting alarms, and deletes', async () => {
+    const watch = await newWatch({ name: 'Paused and resumed' });
+    await ctx.as('analyst').post(`/watches/${watch.id}/pause`).expect(200);
+    expect((await ctx.as('analyst').post(`/watches/${watch.id}/pause`)).status).toBe(409);
+    const resumed = await ctx.as('analyst').post(`/watches/${watch.id}/resume`, {}).expect(200);
+    expect(resumed.body).toMatchObject({ state: 'holding', alertState: 'none' });
+    const waiting = await ctx.as('lead').get('/watches?waiting=true').expect(200);
+    expect(waiting.body.items.map((item: { id: number }) => item.id)).not.toContain(watch.id);
+    expect((await ctx.as('viewer').delete(`/watches/${watch.id}`)).status).toBe(403);
+    await ctx.as('analyst').delete(`/watches/${watch.id}`).expect(204);
+    expect((await ctx.as('lead').get(`/watches/${watch.id}`)).status).toBe(404);
+    const audit = await ctx.db('audit_events').where({ entity_type: 'watch', entity_id: String(watch.id) }).orderBy('id').pluck('action');
+    expect(audit).toEqual(['create', 'update', 'update', 'delete']);
+  });
+
   it('keeps the hypothesis fixed once batches exist', async () => {
     const watch = await newWatch();
     await ctx.as('analyst').post(`/watches/${watch.id}/batches`, batch({ blue: 3, green: 4 })).expect(201);

@@ -1,6 +1,6 @@
 /**
  * The Dirichlet–multinomial mixture behind the sequential test (Lindon & Malek 2022, "Anytime-valid
- * inference for multinomial count data", NeurIPS 35, §2; arXiv 2011.03567).
+ * inference for multinomial count data", NeurIPS 35, arXiv 2011.03567, §2, section from memory).
  *
  * With a Dirichlet(α) prior on the shares and cumulative counts x (total n, c = Σα), the probability
  * of the observed sequence of category draws under the mixture is

@@ -9,7 +9,7 @@
  * - the anytime-valid p-value p_n = min(1, min_{m ≤ n} 1 / BF_m), never increasing. BF_n is a
  *   non-negative martingale with mean 1 under the null, so by Ville's inequality
  *   P(BF_n ≥ 1/α at some look) ≤ α, i.e. P(p_n ≤ α at some look) ≤ α however often one looks
- *   and whenever one stops (Ville 1939, "Étude critique de la notion de collectif", p. 84–85);
+ *   and whenever one stops (Ville 1939, "Étude critique de la notion de collectif");
  * - the alarm: p_n ≤ α; once raised it stays raised, as p_n never increases;
  * - each share's cumulative estimate x_i / n with its confidence sequence
  *   (share-confidence-sequence.ts) at level 1 − α.

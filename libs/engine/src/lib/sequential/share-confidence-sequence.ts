@@ -11,8 +11,8 @@
  * martingale with mean 1 when θ is the true share. By Ville's inequality it exceeds 1/α at any
  * look with probability at most α, so {θ : M_n(θ) < 1/α} holds the true share at every look at
  * once with probability at least 1 − α (Lindon & Malek 2022, §2, the confidence sequences for the
- * multinomial shares; Waudby-Smith & Ramdas 2020, "Confidence sequences for sampling without
- * replacement", the prior–posterior ratio). Each category's sequence holds on its own; they are
+ * multinomial shares; the prior–posterior ratio construction also in Waudby-Smith & Ramdas 2020,
+ * "Confidence sequences for sampling without replacement", NeurIPS 33; sections from memory). Each category's sequence holds on its own; they are
  * not adjusted for the number of categories.
  *
  * ln M_n is convex in θ with its minimum at θ̂ = x / n, where it is at most 0 (the mixture cannot
