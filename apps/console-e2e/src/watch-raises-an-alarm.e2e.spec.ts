@@ -197,7 +197,8 @@ describe('an analyst sets up a watch, a pipeline feeds it, it raises an alarm an
     await lead.keyboard.press('Enter');
     const dialog = lead.getByRole('dialog');
     await dialog.getByRole('heading', { name: /Acknowledge the alarm/ }).waitFor();
-    await expect(focusedName(lead)).resolves.toBe('Note');
+    // The dialog puts the focus on the note once it has opened.
+    await eventually('the focus on the note', async () => ((await focusedName(lead)) === 'Note' ? true : null), 5_000);
     await lead.keyboard.type('Load balancer weights were changed on Tuesday; reverted.');
     await tabTo(lead, /^Acknowledge$/, 5);
     await lead.keyboard.press('Enter');
