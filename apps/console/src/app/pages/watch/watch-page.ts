@@ -21,7 +21,7 @@ import { ALERT_STATE_WORDS, BATCH_SOURCE_WORDS, FEED_WORDS, WATCH_STATE_MEANINGS
 import { AcknowledgeDialog, type AcknowledgeDialogData } from './acknowledge-dialog';
 import { UploadBatchPanel } from './upload-batch-panel';
 import { WatchTimeline } from './watch-timeline';
-import { alarmToAcknowledge, deliveryText, pushExample, watchHeadline } from './watch-view';
+import { alarmToAcknowledge, deliveryText, pFigure, pushExample, watchHeadline } from './watch-view';
 
 /** How often the page asks again, so a new batch or an alarm shows without reloading. */
 export const WATCH_REFRESH_MS = 15_000;
@@ -105,6 +105,7 @@ export class WatchPage {
   protected readonly feedWords = FEED_WORDS;
   protected readonly sourceWords = BATCH_SOURCE_WORDS;
   protected readonly formatP = formatP;
+  protected readonly pFigure = pFigure;
   protected readonly deliveryText = deliveryText;
 
   constructor() {

@@ -1,6 +1,6 @@
 import type { WatchAlert } from '@tallyfit/contracts';
 import { execFileSync } from 'node:child_process';
-import { alarmToAcknowledge, deliveryText, furthestCategory, pushExample, TOKEN_PLACEHOLDER, watchHeadline } from './watch-view';
+import { alarmToAcknowledge, deliveryText, furthestCategory, pFigure, pushExample, TOKEN_PLACEHOLDER, watchHeadline } from './watch-view';
 
 function alert(change: Partial<WatchAlert>): WatchAlert {
   return {
@@ -39,6 +39,13 @@ describe('the watch page in words', () => {
     expect(watchHeadline({ alarm: false, batchCount: 1, n: 1, sequentialP: 0.42, alpha: 0.01 })).toBe(
       'After 1 batch (1 observation) the sequential p is .420, not below alpha 0.01.',
     );
+  });
+
+  it('writes a p-value alone in a cell without its equals sign', () => {
+    // APA style (common practice, no source): three decimals, no leading zero.
+    expect(pFigure(0.0047)).toBe('.005');
+    expect(pFigure(0.0004)).toBe('< .001');
+    expect(pFigure(0.9996)).toBe('> .999');
   });
 
   it('offers the newest alarm for acknowledgement only while it waits', () => {

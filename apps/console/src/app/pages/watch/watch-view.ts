@@ -19,8 +19,13 @@ export function furthestCategory(shares: readonly WatchShare[]): string | null {
 export function watchHeadline(watch: Pick<Watch, 'alarm' | 'batchCount' | 'n' | 'sequentialP' | 'alpha'>): string {
   if (watch.batchCount === 0) return 'No batches yet: the first one starts the sequential test.';
   const so = `After ${plural(watch.batchCount, 'batch', 'batches')} (${plural(watch.n, 'observation', 'observations')})`;
-  const p = `the sequential p is ${formatP(watch.sequentialP).replace(/^= /, '')}`;
+  const p = `the sequential p is ${pFigure(watch.sequentialP)}`;
   return `${so} ${p}, ${watch.alarm ? 'below' : 'not below'} alpha ${watch.alpha}.`;
+}
+
+/** A p-value standing alone in a table cell: ".005", "< .001", "> .999" (formatP without its "= "). */
+export function pFigure(p: number): string {
+  return formatP(p).replace(/^= /, '');
 }
 
 /** The alarm a lead can acknowledge: the newest alert, when it is an alarm no one has acknowledged. */
