@@ -15,7 +15,9 @@ export async function runPullQuery(source: Knex, query: string, period: { start:
   const rows = await source.transaction(
     async (trx) => {
       await trx.raw(`set local statement_timeout = ${Math.round(timeoutMs)}`);
-      const result = await trx.raw(query, { periodStart: period.start, periodEnd: period.end });
+      // Only the named bindings are placeholders: a `?` (in a text, or PostgreSQL's jsonb operator)
+      // is escaped so knex does not turn it into a positional parameter.
+      const result = await trx.raw(query.replace(/\?/g, '\\?'), { periodStart: period.start, periodEnd: period.end });
       return (result.rows ?? []) as Array<Record<string, unknown>>;
     },
     { readOnly: true },

@@ -12,6 +12,9 @@ import { selectWatches, type WatchRow } from './watch-rows';
 /** Longer than a pull can take (statement timeout, engine time and storing), with room to spare. */
 const STALE_CLAIM_MS = 5 * 60_000;
 
+/** How long finished pulls stay in watch_pull_ticks. */
+const TICK_LOG_DAYS = 30;
+
 export type TickOutcome = 'batch' | 'empty' | 'error' | 'skipped' | 'taken';
 
 export interface PullScheduler {
@@ -151,6 +154,8 @@ export function startPullScheduler(deps: SchedulerDeps): PullScheduler {
 
   async function sync(catchUp = false): Promise<void> {
     if (stopped) return;
+    // Finished leases are kept a while as the pulls' log, then let go so the table stays small.
+    await db('watch_pull_ticks').whereNotNull('finished_at').where('claimed_at', '<', dbTime(db, new Date(Date.now() - TICK_LOG_DAYS * 86_400_000).toISOString())).del();
     const rows: WatchRow[] = await selectWatches(db).where('watches.feed_kind', 'pull').whereNot('watches.state', 'paused');
     const active = new Map(rows.map((row) => [row.id, row]));
     for (const [id, job] of jobs) {
