@@ -132,7 +132,8 @@ describe('hypotheses for a stream of batches (watches)', () => {
       { kind: 'ratio', values: [1, 2, 1] },
     ] as const) {
       const k = hypothesis.kind === 'equal' ? 2 : hypothesis.values.length;
-      expect(buildHypothesis(draft(draftFromHypothesis(hypothesis)), k, 100)).toEqual({ ok: true, hypothesis });
+      const observed = { labels: Array.from({ length: k }, (_, i) => `c${i}`), counts: Array.from({ length: k }, () => 20) };
+      expect(buildHypothesis(draft(draftFromHypothesis(hypothesis)), observed)).toEqual({ ok: true, hypothesis });
     }
   });
 });
