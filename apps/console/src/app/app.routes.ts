@@ -30,6 +30,34 @@ export const appRoutes: Routes = [
         loadComponent: () => import('./pages/history/history-page').then((m) => m.HistoryPage),
       },
       {
+        path: 'watches',
+        title: 'Watches · Tallyfit',
+        loadComponent: () => import('./pages/watches/watches-page').then((m) => m.WatchesPage),
+      },
+      {
+        path: 'watches/new',
+        title: 'New watch · Tallyfit',
+        canMatch: [capabilityGuard('watches.manage')],
+        loadComponent: () => import('./pages/watch-form/watch-form-page').then((m) => m.WatchFormPage),
+      },
+      {
+        path: 'watches/:id/edit',
+        title: 'Change a watch · Tallyfit',
+        canMatch: [capabilityGuard('watches.manage')],
+        loadComponent: () => import('./pages/watch-form/watch-form-page').then((m) => m.WatchFormPage),
+      },
+      {
+        path: 'watches/:id',
+        title: 'Watch · Tallyfit',
+        loadComponent: () => import('./pages/watch/watch-page').then((m) => m.WatchPage),
+      },
+      {
+        path: 'connections',
+        title: 'Team databases · Tallyfit',
+        canMatch: [capabilityGuard('connections.manage')],
+        loadComponent: () => import('./pages/connections/connections-page').then((m) => m.ConnectionsPage),
+      },
+      {
         path: 'tokens',
         title: 'API tokens · Tallyfit',
         loadComponent: () => import('./pages/tokens/tokens-page').then((m) => m.TokensPage),

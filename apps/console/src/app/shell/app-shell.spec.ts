@@ -23,13 +23,13 @@ describe('AppShell', () => {
   const links = (root: HTMLElement) => Array.from(root.querySelectorAll('nav a, nav button')).map((el) => el.textContent?.trim());
 
   it('shows a viewer the places to read and the planner, nothing that changes data', () => {
-    expect(links(render('viewer').nativeElement)).toEqual(['Studies', 'History', 'My analyses', 'Planner']);
+    expect(links(render('viewer').nativeElement)).toEqual(['Studies', 'History', 'Watches', 'My analyses', 'Planner']);
   });
 
   it('gives a lead the audit trail directly and an admin the admin menu', () => {
     expect(links(render('lead').nativeElement)).toContain('Audit trail expand_more');
     TestBed.resetTestingModule();
-    expect(links(render('admin').nativeElement)).toEqual(['Studies', 'History', 'My analyses', 'New analysis', 'Planner', 'Admin expand_more']);
+    expect(links(render('admin').nativeElement)).toEqual(['Studies', 'History', 'Watches', 'My analyses', 'New analysis', 'Planner', 'Admin expand_more']);
   });
 
   it('signs out from the account menu, revoking the session', async () => {

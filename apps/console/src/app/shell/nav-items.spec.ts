@@ -4,7 +4,7 @@ const labels = (items: { label: string }[]) => items.map((item) => item.label);
 
 describe('navigation by role', () => {
   it('offers a viewer places to read and the planner, which computes without storing anything', () => {
-    expect(labels(visibleTo(MAIN_NAV, 'viewer'))).toEqual(['Studies', 'History', 'My analyses', 'Planner']);
+    expect(labels(visibleTo(MAIN_NAV, 'viewer'))).toEqual(['Studies', 'History', 'Watches', 'My analyses', 'Planner']);
     expect(visibleTo(ADMIN_NAV, 'viewer')).toEqual([]);
   });
 

@@ -14,6 +14,7 @@ export interface NavItem {
 export const MAIN_NAV: readonly NavItem[] = [
   { path: '/studies', label: 'Studies', icon: 'folder_open' },
   { path: '/history', label: 'History', icon: 'history' },
+  { path: '/watches', label: 'Watches', icon: 'monitor_heart', capability: 'watches.read' },
   { path: '/analyses', label: 'My analyses', icon: 'list_alt', exact: true },
   { path: '/analyses/new', label: 'New analysis', icon: 'add_chart', capability: 'analyses.run' },
   // The planner computes in the browser with the engine, which every role may use.

@@ -1,4 +1,4 @@
-import { buildHypothesis, previewExpected, type HypothesisDraft } from './hypothesis-draft';
+import { buildHypothesis, draftFromHypothesis, previewExpected, previewShares, type HypothesisDraft } from './hypothesis-draft';
 
 const draft = (overrides: Partial<HypothesisDraft>): HypothesisDraft => ({
   kind: 'equal',
@@ -109,5 +109,31 @@ describe('previewExpected', () => {
   it('returns the engine’s message when the data cannot carry the hypothesis', () => {
     const preview = previewExpected({ labels: ['low', 'high'], counts: [3, 4] }, { kind: 'distribution', family: 'poisson' });
     expect(preview).toEqual({ ok: false, errors: ['for a poisson fit each label must be a whole number (the counted value), got "low"'] });
+  });
+});
+
+describe('hypotheses for a stream of batches (watches)', () => {
+  it('shows the shares a ratio fixes before any count arrives', () => {
+    // Mendel's 9:3:3:1 dihybrid ratio: shares 9/16, 3/16, 3/16, 1/16 (exact fractions).
+    const preview = previewShares(['AB', 'Ab', 'aB', 'ab'], { kind: 'ratio', values: [9, 3, 3, 1] });
+    if (!preview.ok) throw new Error(preview.errors.join(' '));
+    expect(preview.rows.map((row) => row.expectedShare)).toEqual([9 / 16, 3 / 16, 3 / 16, 1 / 16]);
+  });
+
+  it('refuses a hypothesis whose expectation depends on the data', () => {
+    const preview = previewShares(['0', '1', '2'], { kind: 'distribution', family: 'poisson' });
+    expect(preview).toEqual({ ok: false, errors: [expect.stringContaining('shares fixed in advance')] });
+  });
+
+  it('fills the form back from a stored hypothesis, so it builds the same one again', () => {
+    for (const hypothesis of [
+      { kind: 'equal' },
+      { kind: 'proportions', values: [0.22, 0.24, 0.18, 0.14, 0.22] },
+      { kind: 'ratio', values: [1, 2, 1] },
+    ] as const) {
+      const k = hypothesis.kind === 'equal' ? 2 : hypothesis.values.length;
+      const observed = { labels: Array.from({ length: k }, (_, i) => `c${i}`), counts: Array.from({ length: k }, () => 20) };
+      expect(buildHypothesis(draft(draftFromHypothesis(hypothesis)), observed)).toEqual({ ok: true, hypothesis });
+    }
   });
 });

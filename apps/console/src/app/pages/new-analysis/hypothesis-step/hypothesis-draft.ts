@@ -183,3 +183,33 @@ export function previewExpected(observed: ParsedCounts, hypothesis: Hypothesis):
     throw error;
   }
 }
+
+/** The kinds a stream of batches can be tested against: shares fixed before any count arrives (the engine's rule for sequential tests). */
+export const STREAM_KINDS: readonly HypothesisKind[] = ['equal', 'proportions', 'ratio'];
+
+/**
+ * The expected shares of a hypothesis with shares fixed in advance, before any count has arrived
+ * (a watch). Such shares do not depend on the counts, so one observation per category stands in
+ * for the data to let the engine compute them.
+ */
+export function previewShares(labels: readonly string[], hypothesis: Hypothesis): ExpectedPreview {
+  if (!STREAM_KINDS.includes(hypothesis.kind)) {
+    return { ok: false, errors: ['A watch needs shares fixed in advance: every category equal, a share for each, or a ratio.'] };
+  }
+  return previewExpected({ labels: [...labels], counts: labels.map(() => 1) }, hypothesis);
+}
+
+/** The form's draft for a hypothesis already given (a watch being changed). */
+export function draftFromHypothesis(hypothesis: Hypothesis): Partial<HypothesisDraft> {
+  switch (hypothesis.kind) {
+    case 'proportions':
+    case 'counts':
+      return { kind: hypothesis.kind, values: [...hypothesis.values] };
+    case 'ratio':
+      return { kind: 'ratio', ratio: hypothesis.values.join(':') };
+    case 'distribution':
+      return { kind: 'distribution', family: hypothesis.family, params: { ...hypothesis.params }, breaks: hypothesis.breaks?.join(', ') ?? '' };
+    default:
+      return { kind: hypothesis.kind };
+  }
+}

@@ -18,9 +18,12 @@ import { totalOf } from '../data-step/data-choice';
 import type { ParsedCounts } from '../data-step/pasted-counts';
 import {
   buildHypothesis,
+  draftFromHypothesis,
   FAMILY_NAMES,
   FAMILY_PARAMS,
   previewExpected,
+  previewShares,
+  STREAM_KINDS,
   sumOf,
   type HypothesisDraft,
   type HypothesisKind,
@@ -33,6 +36,9 @@ const SMALL_EXPECTED = 5;
 /**
  * The second step: what the counts were expected to be. The expected counts the hypothesis
  * implies are computed by the engine in the browser and shown as the person types.
+ *
+ * A watch reuses the step with `streamed` set: its counts arrive later in batches, so only
+ * hypotheses with shares fixed in advance are offered and the preview shows the expected shares.
  */
 @Component({
   selector: 'tf-hypothesis-step',
@@ -45,19 +51,26 @@ export class HypothesisStep {
   private readonly fb = inject(NonNullableFormBuilder);
 
   readonly observed = input<ParsedCounts | null>(null);
+  /** The counts arrive later, batch by batch (a watch); `observed` then holds the categories only. */
+  readonly streamed = input(false);
+  /** A hypothesis to start from, e.g. the one a watch being changed already has. */
+  readonly initial = input<Hypothesis | null>(null);
   readonly hypothesisChange = output<Hypothesis | null>();
 
   protected readonly families = distributionFamilies;
   protected readonly familyNames = FAMILY_NAMES;
   protected readonly familyParams = FAMILY_PARAMS;
   protected readonly smallExpected = SMALL_EXPECTED;
-  protected readonly kinds: { value: HypothesisKind; label: string }[] = [
+  private readonly allKinds: { value: HypothesisKind; label: string }[] = [
     { value: 'equal', label: 'Every category equally likely' },
     { value: 'proportions', label: 'A share for each category' },
     { value: 'ratio', label: 'A ratio, such as 9:3:3:1' },
     { value: 'counts', label: 'An expected count for each category' },
     { value: 'distribution', label: 'A distribution fitted to the counts' },
   ];
+  protected readonly kinds = computed(() =>
+    this.streamed() ? this.allKinds.filter((kind) => STREAM_KINDS.includes(kind.value)) : this.allKinds,
+  );
 
   protected readonly form = this.fb.group({
     kind: this.fb.control<HypothesisKind>('equal'),
@@ -101,14 +114,28 @@ export class HypothesisStep {
     this.draft();
     const observed = this.observed();
     const outcome = this.outcome();
-    return observed && outcome?.ok ? previewExpected(observed, outcome.hypothesis) : null;
+    if (!observed || !outcome?.ok) return null;
+    return this.streamed() ? previewShares(observed.labels, outcome.hypothesis) : previewExpected(observed, outcome.hypothesis);
   });
   protected readonly smallCells = computed(() => {
     const preview = this.preview();
+    // Streamed counts have no expected counts yet; each batch's own analysis checks them.
+    if (this.streamed()) return 0;
     return preview?.ok ? preview.rows.filter((row) => row.expected < SMALL_EXPECTED).length : 0;
   });
 
   constructor() {
+    // A given hypothesis fills the form once its categories are known.
+    effect(() => {
+      const initial = this.initial();
+      const k = this.labels().length;
+      if (!initial || k === 0) return;
+      untracked(() => {
+        const values = this.form.controls.values;
+        while (values.length < k) values.push(this.fb.control<number | null>(null));
+        this.form.patchValue(draftFromHypothesis(initial));
+      });
+    });
     // One value field per category, kept in step with the data.
     effect(() => {
       const k = this.labels().length;
