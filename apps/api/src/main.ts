@@ -15,7 +15,11 @@ async function main(): Promise<void> {
   await migrateToLatest(db);
   const signIns = config.seedDemo ? await seedDemo(db, config.dataDir, config.demoPassword) : [];
   // The worker is built beside main.js (see additionalEntryPoints in apps/api/project.json).
-  const engine = createEnginePool({ workerFile: join(__dirname, 'engine-worker.js'), timeLimitMs: config.engineTimeLimitMs });
+  const engine = createEnginePool({
+    workerFile: join(__dirname, 'engine-worker.js'),
+    timeLimitMs: config.engineTimeLimitMs,
+    queueWaitLimitMs: config.engineQueueWaitMs,
+  });
   // Without SMTP_URL a local SMTP stand-in receives the mail; admins read it in the outbox.
   const mail = await startMailService({ smtpUrl: config.smtpUrl, from: config.mailFrom });
   const { app } = createApp({ config, db, engine, mail, logger });

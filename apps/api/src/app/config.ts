@@ -14,8 +14,10 @@ export interface Config {
   refreshTokenTtlSeconds: number;
   /** Failed sign-ins allowed per address and e-mail in a 15-minute window. */
   loginAttemptsPer15Minutes: number;
-  /** Longest one engine run may take before it is stopped. */
+  /** Longest one engine run may compute (from when it starts on a thread) before it is stopped. */
   engineTimeLimitMs: number;
+  /** Longest an engine run may wait for a thread before it is refused as queued too long. */
+  engineQueueWaitMs: number;
   /** Largest dataset file accepted, in bytes. */
   uploadLimitBytes: number;
   /** The mail server (smtp:// or smtps:// URL); absent: the API starts its local SMTP stand-in. */
@@ -55,6 +57,7 @@ export function loadConfig(env: Env, cwd = process.cwd()): Config {
     refreshTokenTtlSeconds: integer(env, 'REFRESH_TOKEN_TTL_SECONDS', 14 * 86_400, 60, 365 * 86_400),
     loginAttemptsPer15Minutes: integer(env, 'LOGIN_ATTEMPTS_PER_15_MINUTES', 10, 1, 10_000),
     engineTimeLimitMs: integer(env, 'ENGINE_TIME_LIMIT_SECONDS', 30, 1, 3600) * 1000,
+    engineQueueWaitMs: integer(env, 'ENGINE_QUEUE_WAIT_SECONDS', 30, 1, 3600) * 1000,
     uploadLimitBytes: integer(env, 'UPLOAD_LIMIT_MB', 2048, 1, 100_000) * 1024 * 1024,
     smtpUrl: env['SMTP_URL'] || undefined,
     mailFrom: env['MAIL_FROM'] || 'Tallyfit <tallyfit@localhost>',

@@ -151,7 +151,7 @@ export async function getReadableAnalysis(db: Knex, caller: User, id: number): P
  */
 export async function createAnalysis(db: Knex, engine: EngineRunner, author: User, input: NewAnalysis): Promise<AnalysisRecord> {
   if (input.studyId !== undefined) await requireStudyContributor(db, author, input.studyId);
-  const result = await engine.analyze(input.spec);
+  const result = await engine.analyze(input.spec, { owner: String(author.id) });
   const id = await db.transaction(async (trx) => {
     const [row] = await trx('analyses')
       .insert({
@@ -297,7 +297,7 @@ export async function rerunAnalysis(
   if (!previous.isLatest) throw conflict(`analysis ${id} has a newer version; re-run the latest one`);
   if (previous.study) await requireStudyContributor(db, caller, previous.study.id);
   const nextSpec = spec ?? previous.spec;
-  const result = await engine.analyze(nextSpec);
+  const result = await engine.analyze(nextSpec, { owner: String(caller.id) });
   const newId = await db.transaction(async (trx) => {
     // Only one re-run of a version may win: the update claims the version, a racing one finds nothing to claim.
     const claimed = await trx('analyses').where({ id, is_latest: true }).update({ is_latest: false });

@@ -20,6 +20,7 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
   }
   const body: { code: string; message: string; fields?: unknown } = { code: known.code, message: known.message };
   if (known.fields?.length) body.fields = known.fields;
+  if (known.headers) res.set(known.headers);
   res.status(known.status).json({ error: body });
 };
 
