@@ -24,6 +24,7 @@ import { apiNotFound, errorHandler } from './http/error-handler';
 import { reviewsRoutes } from './reviews/reviews.routes';
 import { studiesRoutes } from './studies/studies.routes';
 import { API_PREFIX, mountRoutes, type RouteDefinition } from './http/route-table';
+import { WriteHealth } from './storage/write-health';
 
 export interface AppContext {
   config: Config;
@@ -93,11 +94,14 @@ export function createApp(context: AppContext): TallyfitApp {
   );
   app.use(cors({ origin: config.consoleOrigin ?? false }));
   app.use(express.json({ limit: '1mb' }));
+  const writeHealth = new WriteHealth(config.dataDir);
+  app.use(writeHealth.noteSuccesses);
 
   const routes = allRoutes(context);
   mountRoutes(app, routes, createAuthenticate(db, config.jwtSecret));
   app.use('/api', apiNotFound);
   if (config.consoleDir) serveConsole(app, config.consoleDir);
+  app.use(writeHealth.noteFailures);
   app.use(errorHandler);
   return { app, routes };
 }

@@ -8,7 +8,7 @@ export function openDatabase(config: Pick<Config, 'databaseUrl' | 'dataDir'>): K
   if (config.databaseUrl) {
     return knex({ client: 'pg', connection: config.databaseUrl, migrations: { migrationSource } });
   }
-  return knex({
+  const db = knex({
     client: 'better-sqlite3',
     connection: { filename: join(config.dataDir, 'tallyfit.sqlite') },
     useNullAsDefault: true,
@@ -22,6 +22,30 @@ export function openDatabase(config: Pick<Config, 'databaseUrl' | 'dataDir'>): K
       },
     },
   });
+  keepErrorsSqliteRolledBack(db);
+  return db;
+}
+
+type QueryRunner = (connection: { inTransaction: boolean }, query: { sql?: string }) => Promise<unknown>;
+const PATCHED = Symbol('keeps errors SQLite rolled back');
+
+/**
+ * SQLite rolls a transaction back by itself after some errors, SQLITE_FULL among them (sqlite.org,
+ * "Transaction", section "Response To Errors Within A Transaction"). Knex then sends ROLLBACK,
+ * which fails with "no transaction is active" and replaces the real error, so a full disk would
+ * read as an unknown failure. A ROLLBACK on a connection no longer in a transaction is skipped.
+ * Knex builds each transaction's client from the dialect's prototype, so the prototype is where
+ * this goes (once).
+ */
+function keepErrorsSqliteRolledBack(db: Knex): void {
+  const dialect = Object.getPrototypeOf(db.client) as { _query: QueryRunner; [PATCHED]?: true };
+  if (dialect[PATCHED]) return;
+  const runQuery = dialect._query;
+  dialect._query = async function (this: unknown, connection, query) {
+    if (/^\s*ROLLBACK\b/i.test(query.sql ?? '') && !connection.inTransaction) return { sql: query.sql, response: [] };
+    return runQuery.call(this, connection, query);
+  };
+  dialect[PATCHED] = true;
 }
 
 export async function migrateToLatest(db: Knex): Promise<void> {
