@@ -45,7 +45,7 @@ type Env = Record<string, string | undefined>;
 /** Reads and checks configuration from the environment. Throws ConfigError naming the bad variable. */
 export function loadConfig(env: Env, cwd = process.cwd()): Config {
   const dataDir = absolute(env['TALLYFIT_DATA_DIR'] ?? 'data', cwd);
-  mkdirSync(dataDir, { recursive: true });
+  mkdirSync(dataDir, { recursive: true, mode: 0o700 });
   const consoleDir = absolute(env['TALLYFIT_CONSOLE_DIR'] ?? 'dist/apps/console/browser', cwd);
   return {
     port: integer(env, 'PORT', 3000, 0, 65535),
@@ -98,6 +98,12 @@ function secretFromDataDir(dataDir: string): string {
   const file = join(dataDir, 'jwt-secret');
   if (existsSync(file)) return readFileSync(file, 'utf8').trim();
   const secret = randomBytes(48).toString('base64url');
-  writeFileSync(file, secret + '\n', { mode: 0o600 });
+  try {
+    // 'wx': of two processes starting at once, one writes the secret and both read that one.
+    writeFileSync(file, secret + '\n', { mode: 0o600, flag: 'wx' });
+  } catch (error) {
+    if ((error as NodeJS.ErrnoException).code !== 'EEXIST') throw error;
+    return readFileSync(file, 'utf8').trim();
+  }
   return secret;
 }

@@ -1,4 +1,5 @@
 import knex, { type Knex } from 'knex';
+import { chmodSync, closeSync, existsSync, openSync } from 'node:fs';
 import { join } from 'node:path';
 import { migrationNames, migrationSource } from '@tallyfit/migrations';
 import type { Config } from './config';
@@ -8,9 +9,11 @@ export function openDatabase(config: Pick<Config, 'databaseUrl' | 'dataDir'>): K
   if (config.databaseUrl) {
     return knex({ client: 'pg', connection: config.databaseUrl, migrations: { migrationSource } });
   }
+  const filename = join(config.dataDir, 'tallyfit.sqlite');
+  createOwnerOnly(filename);
   const db = knex({
     client: 'better-sqlite3',
-    connection: { filename: join(config.dataDir, 'tallyfit.sqlite') },
+    connection: { filename },
     useNullAsDefault: true,
     migrations: { migrationSource },
     pool: {
@@ -24,6 +27,17 @@ export function openDatabase(config: Pick<Config, 'databaseUrl' | 'dataDir'>): K
   });
   keepErrorsSqliteRolledBack(db);
   return db;
+}
+
+/**
+ * The database file is readable by its owner only (0600), created so before SQLite opens it;
+ * SQLite gives its -wal and -shm files the database file's mode.
+ */
+function createOwnerOnly(filename: string): void {
+  if (!existsSync(filename)) closeSync(openSync(filename, 'a', 0o600));
+  for (const file of [filename, `${filename}-wal`, `${filename}-shm`]) {
+    if (existsSync(file)) chmodSync(file, 0o600);
+  }
 }
 
 type QueryRunner = (connection: { inTransaction: boolean }, query: { sql?: string }) => Promise<unknown>;
