@@ -44,7 +44,7 @@ type Env = Record<string, string | undefined>;
 
 /** Reads and checks configuration from the environment. Throws ConfigError naming the bad variable. */
 export function loadConfig(env: Env, cwd = process.cwd()): Config {
-  const dataDir = absolute(env['TALLYFIT_DATA_DIR'] ?? 'data', cwd);
+  const dataDir = dataDirFrom(env, cwd);
   mkdirSync(dataDir, { recursive: true, mode: 0o700 });
   const consoleDir = absolute(env['TALLYFIT_CONSOLE_DIR'] ?? 'dist/apps/console/browser', cwd);
   return {
@@ -69,6 +69,11 @@ export function loadConfig(env: Env, cwd = process.cwd()): Config {
     demoPassword: env['TALLYFIT_DEMO_PASSWORD'] || undefined,
     logLevel: env['LOG_LEVEL'] ?? 'info',
   };
+}
+
+/** The data folder (TALLYFIT_DATA_DIR, default ./data); also read by the backup and restore commands. */
+export function dataDirFrom(env: Env, cwd = process.cwd()): string {
+  return absolute(env['TALLYFIT_DATA_DIR'] ?? 'data', cwd);
 }
 
 function absolute(path: string, cwd: string): string {

@@ -3,13 +3,14 @@ import { chmodSync, closeSync, existsSync, openSync } from 'node:fs';
 import { join } from 'node:path';
 import { migrationNames, migrationSource } from '@tallyfit/migrations';
 import type { Config } from './config';
+import { SQLITE_FILE } from './storage/data-folder';
 
 /** Opens the configured database: PostgreSQL when DATABASE_URL is set, else the embedded SQLite file. */
 export function openDatabase(config: Pick<Config, 'databaseUrl' | 'dataDir'>): Knex {
   if (config.databaseUrl) {
     return knex({ client: 'pg', connection: config.databaseUrl, migrations: { migrationSource } });
   }
-  const filename = join(config.dataDir, 'tallyfit.sqlite');
+  const filename = join(config.dataDir, SQLITE_FILE);
   createOwnerOnly(filename);
   const db = knex({
     client: 'better-sqlite3',

@@ -3,6 +3,8 @@ import { join } from 'node:path';
 
 /** Where uploads are written while they arrive; anything left there at start is from a crash. */
 export const UPLOADS_IN_PROGRESS = 'uploads-in-progress';
+/** The embedded database's file in the data folder. */
+export const SQLITE_FILE = 'tallyfit.sqlite';
 
 /**
  * The data folder holds the database, the signing secret and people's datasets: only the
