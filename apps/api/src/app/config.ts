@@ -36,6 +36,11 @@ export interface Config {
   /** A fixed password for every demo person (tests); otherwise one is generated per data folder. */
   demoPassword?: string;
   logLevel: string;
+  /**
+   * Which proxies may state the client's address in X-Forwarded-For (Express's "trust proxy"):
+   * false unless TRUST_PROXY is set, so a client cannot pick its own address for the sign-in limit.
+   */
+  trustProxy: boolean | number | string;
 }
 
 export class ConfigError extends Error {}
@@ -68,6 +73,7 @@ export function loadConfig(env: Env, cwd = process.cwd()): Config {
     seedDemo: flag(env, 'TALLYFIT_DEMO_SEED', true),
     demoPassword: env['TALLYFIT_DEMO_PASSWORD'] || undefined,
     logLevel: env['LOG_LEVEL'] ?? 'info',
+    trustProxy: trustProxy(env),
   };
 }
 
@@ -88,6 +94,17 @@ function integer(env: Env, name: string, fallback: number, min: number, max: num
     throw new ConfigError(`${name} must be a whole number from ${min} to ${max}, got "${raw}"`);
   }
   return value;
+}
+
+/** TRUST_PROXY: unset or "false" trusts no proxy; a number of hops; or addresses/subnets/"loopback", comma-separated. */
+function trustProxy(env: Env): boolean | number | string {
+  const raw = (env['TRUST_PROXY'] ?? '').trim();
+  if (raw === '' || raw.toLowerCase() === 'false') return false;
+  if (/^\d+$/.test(raw)) return Number(raw);
+  if (!/^[0-9A-Za-z.:/, -]+$/.test(raw)) {
+    throw new ConfigError(`TRUST_PROXY must be false, a number of proxies, or addresses/subnets such as "loopback" or "10.0.0.0/8", got "${raw}"`);
+  }
+  return raw;
 }
 
 function flag(env: Env, name: string, fallback: boolean): boolean {

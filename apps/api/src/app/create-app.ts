@@ -72,7 +72,8 @@ export function createApp(context: AppContext): TallyfitApp {
   const logger = context.logger ?? pino({ level: config.logLevel });
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // Forwarded headers are believed only from the proxies TRUST_PROXY names (none by default).
+  app.set('trust proxy', config.trustProxy);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -94,6 +95,11 @@ export function createApp(context: AppContext): TallyfitApp {
   );
   app.use(cors({ origin: config.consoleOrigin ?? false }));
   app.use(express.json({ limit: '1mb' }));
+  // API answers carry tokens and personal data: no browser or proxy may keep a copy.
+  app.use(API_PREFIX, (_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
   const writeHealth = new WriteHealth(config.dataDir);
   app.use(writeHealth.noteSuccesses);
 
