@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import type { ChangePasswordRequest, CreatePersonRequest, Person, UpdatePersonRequest, User } from '@tallyfit/contracts';
 import { recordAudit } from '../audit/audit.service';
 import { hashPassword, verifyPassword } from '../auth/password';
+import { requireStrongPassword } from '../auth/password-strength';
 import { revokeAllRefreshTokens } from '../auth/refresh-tokens.service';
 import { findUserByEmail, findUserById } from '../auth/users.service';
 import { insertedId, isoDate } from '../http/db-time';
@@ -53,6 +54,7 @@ export async function getPerson(db: Knex, id: number): Promise<Person> {
 /** An admin adds a person; e-mails are unique without regard to case. */
 export async function createPerson(db: Knex, caller: User, request: CreatePersonRequest): Promise<Person> {
   if (await findUserByEmail(db, request.email)) throw conflict(`someone already signs in with ${request.email.toLowerCase()}`);
+  await requireStrongPassword(request.password, 'password', [request.email, request.name]);
   const passwordHash = await hashPassword(request.password);
   const id = await db.transaction(async (trx) => {
     const [row] = await trx('users')
@@ -116,6 +118,7 @@ export async function changeOwnPassword(db: Knex, caller: User, request: ChangeP
   if (!user || !(await verifyPassword(request.currentPassword, user.passwordHash))) {
     throw unprocessable('the current password is wrong', [{ path: 'currentPassword', message: 'is wrong' }]);
   }
+  await requireStrongPassword(request.newPassword, 'newPassword', [user.email, user.name]);
   const passwordHash = await hashPassword(request.newPassword);
   await db.transaction(async (trx) => {
     await trx('users').where({ id: caller.id }).update({ password_hash: passwordHash });
