@@ -74,9 +74,9 @@ describe('sessions: refresh, sign-out, password change, rate limit', () => {
     const limited = await login(email, 'guess');
     expect(limited.status).toBe(429);
     expect(limited.body).toEqual({
-      error: { code: 'too_many_attempts', message: 'too many failed sign-ins for this e-mail from this address; wait 15 minutes and try again' },
+      error: { code: 'too_many_attempts', message: 'too many failed sign-ins for this e-mail or from this address; wait 15 minutes and try again' },
     });
-    expect(limited.headers['ratelimit-policy']).toBeDefined();
+    expect(limited.headers['retry-after']).toBe('900');
     // Other people behind the same address are not locked out, and successful sign-ins do not count.
     for (let attempt = 0; attempt < 4; attempt += 1) expect((await login('lead@test.local')).status).toBe(200);
   });
