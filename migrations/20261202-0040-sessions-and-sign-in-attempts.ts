@@ -7,6 +7,12 @@ import type { Knex } from 'knex';
  * - sign_in_attempts: one row per sign-in attempt until it succeeds (then removed), counted per
  *   e-mail and per address over a sliding window.
  */
+/**
+ * Outside a transaction: SQLite drops a column by rebuilding the table, which needs foreign-key
+ * checks switched off for the rebuild, and SQLite ignores that switch inside a transaction.
+ */
+export const config = { transaction: false };
+
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.alterTable('users', (table) => {
     table.bigInteger('sessions_valid_after_ms');

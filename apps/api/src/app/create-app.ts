@@ -43,9 +43,9 @@ export interface TallyfitApp {
 }
 
 /** Every resource's routes. A new resource is added here and nowhere else. */
-function allRoutes({ config, db, engine, mail }: AppContext): RouteDefinition[] {
+function allRoutes({ config, db, engine, mail }: AppContext, writeHealth: WriteHealth): RouteDefinition[] {
   const routes: RouteDefinition[] = [
-    ...healthRoutes(db),
+    ...healthRoutes(db, writeHealth),
     ...authRoutes(db, config),
     ...peopleRoutes(db),
     ...apiTokensRoutes(db),
@@ -103,7 +103,7 @@ export function createApp(context: AppContext): TallyfitApp {
   const writeHealth = new WriteHealth(config.dataDir);
   app.use(writeHealth.noteSuccesses);
 
-  const routes = allRoutes(context);
+  const routes = allRoutes(context, writeHealth);
   mountRoutes(app, routes, createAuthenticate(db, config.jwtSecret));
   app.use('/api', apiNotFound);
   if (config.consoleDir) serveConsole(app, config.consoleDir);

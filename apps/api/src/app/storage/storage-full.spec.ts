@@ -1,3 +1,4 @@
+import request from 'supertest';
 import { createTestApp, type TestContext } from '../../testing/test-app';
 import { isStorageFull } from './storage-full';
 
@@ -30,7 +31,13 @@ onSqlite('writes on a full disk (SQLite capped by max_page_count)', () => {
       message: 'the server has run out of disk space, so nothing was saved; ask an administrator to free space, then try again',
     });
 
+    const health = await request(ctx.app).get('/api/v1/health');
+    expect(health.status).toBe(503);
+    expect(health.body.status).toBe('degraded');
+    expect(health.body.storage).toMatchObject({ writable: false, problem: expect.stringMatching(/^a write failed for lack of disk space at \S+; none has succeeded since$/) });
+
     await ctx.db.raw(`PRAGMA max_page_count = ${pages * 100}`);
     expect((await ctx.as('analyst').post('/studies', { name: 'Room again' })).status).toBe(201);
+    expect((await request(ctx.app).get('/api/v1/health')).body).toMatchObject({ status: 'ok', storage: { writable: true } });
   });
 });
