@@ -24,7 +24,7 @@ export function receiveDatasetFile(tempDir: string, limitBytes: number): Request
     limits: { fileSize: limitBytes, files: 1, fields: 10, fieldSize: 1000, parts: 12 },
     fileFilter: (_req, file, callback) => {
       // A control character (a NUL above all) in a name would be stored and shown as is; refuse it.
-      if (/[\u0000-\u001f\u007f]/.test(file.originalname)) callback(controlCharacterInName());
+      if (hasControlCharacter(file.originalname)) callback(controlCharacterInName());
       else if (fileKindOf(file.originalname)) callback(null, true);
       else callback(unsupportedFileType(file.originalname));
     },
@@ -46,6 +46,9 @@ export function receiveDatasetFile(tempDir: string, limitBytes: number): Request
     });
   };
 }
+
+/** C0 controls (NUL to U+001F) and DEL. */
+const hasControlCharacter = (name: string) => [...name].some((char) => char.charCodeAt(0) < 0x20 || char.charCodeAt(0) === 0x7f);
 
 const controlCharacterInName = () =>
   badRequest('the file name contains a control character (such as NUL); rename the file and send it again', [
