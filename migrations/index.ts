@@ -9,7 +9,12 @@ import * as createApiAndRefreshTokens from './20261202-0007-create-api-and-refre
 import * as createDatasets from './20261202-0020-create-datasets';
 import * as createShares from './20261202-0021-create-shares';
 import * as indexAnalysisHistory from './20261202-0022-index-analysis-history';
-import * as sessionsAndSignInAttempts from './20261202-0040-sessions-and-sign-in-attempts';
+import * as createSourceConnections from './20261202-0040-create-source-connections';
+import * as createWatches from './20261202-0041-create-watches';
+import * as createWatchBatches from './20261202-0042-create-watch-batches';
+import * as createWatchAlerts from './20261202-0043-create-watch-alerts';
+import * as createWatchPullTicks from './20261202-0044-create-watch-pull-ticks';
+import * as sessionsAndSignInAttempts from './20261202-0050-sessions-and-sign-in-attempts';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -31,7 +36,12 @@ const migrations: ReadonlyArray<readonly [name: string, migration: Migration]> =
   ['20261202-0020-create-datasets', createDatasets],
   ['20261202-0021-create-shares', createShares],
   ['20261202-0022-index-analysis-history', indexAnalysisHistory],
-  ['20261202-0040-sessions-and-sign-in-attempts', sessionsAndSignInAttempts],
+  ['20261202-0040-create-source-connections', createSourceConnections],
+  ['20261202-0041-create-watches', createWatches],
+  ['20261202-0042-create-watch-batches', createWatchBatches],
+  ['20261202-0043-create-watch-alerts', createWatchAlerts],
+  ['20261202-0044-create-watch-pull-ticks', createWatchPullTicks],
+  ['20261202-0050-sessions-and-sign-in-attempts', sessionsAndSignInAttempts],
 ];
 
 export const migrationSource: Knex.MigrationSource<Migration> = {

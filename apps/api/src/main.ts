@@ -24,7 +24,7 @@ async function main(): Promise<void> {
   if (interrupted) logger.warn({ files: interrupted }, 'removed uploads a previous run left unfinished');
   const db = openDatabase(config);
   await migrateToLatest(db);
-  const signIns = config.seedDemo ? await seedDemo(db, config.dataDir, config.demoPassword) : [];
+  const signIns = config.seedDemo ? await seedDemo(db, config.dataDir, config.demoPassword, config.publicUrl) : [];
   // The worker is built beside main.js (see additionalEntryPoints in apps/api/project.json).
   const engine = createEnginePool({
     workerFile: join(__dirname, 'engine-worker.js'),
@@ -33,7 +33,7 @@ async function main(): Promise<void> {
   });
   // Without SMTP_URL a local SMTP stand-in receives the mail; admins read it in the outbox.
   const mail = await startMailService({ smtpUrl: config.smtpUrl, from: config.mailFrom });
-  const { app } = createApp({ config, db, engine, mail, logger });
+  const { app, watches } = createApp({ config, db, engine, mail, logger });
 
   const server = await listen(app, config.port, config.host);
   const address = server.address();
@@ -50,7 +50,7 @@ async function main(): Promise<void> {
   process.stdout.write(lines.filter((line, i) => line !== '' || i === 0 || i === lines.length - 1).join('\n') + '\n');
 
   const shutdown = () => {
-    server.close(() => void Promise.all([engine.close(), mail.stop(), db.destroy()]).then(() => process.exit(0)));
+    server.close(() => void watches.stop().then(() => Promise.all([engine.close(), mail.stop(), db.destroy()])).then(() => process.exit(0)));
   };
   process.on('SIGINT', shutdown);
   process.on('SIGTERM', shutdown);

@@ -3,6 +3,8 @@
  *
  * One entry point, `analyze(spec)`, takes a plain JSON spec and returns a plain JSON result; the
  * distribution functions, planning functions and category merging are exported for direct use.
+ * `analyzeSequential` (and its incremental form `startSequential` / `addSequentialBatch`) tests a
+ * stream of batches with an anytime-valid sequential test.
  */
 export { analyze, DEFAULT_ALPHA, DEFAULT_INTERVAL_LEVEL, type AnalyzeOptions } from './lib/analyze';
 export { ENGINE_VERSION } from './lib/engine-version';
@@ -19,6 +21,8 @@ export {
   adjustMethods,
   intervalMethods,
   type AnalysisSpec,
+  type ExactMethod,
+  type ExactOrdering,
   type Hypothesis,
   type DistributionFamily,
   type DistributionParams,
@@ -47,10 +51,29 @@ export {
 export { power, sampleSize, type PowerInput, type PowerResult, type SampleSizeInput, type SampleSizeResult } from './lib/planning/power';
 export { binomialTest, type BinomialTestResult } from './lib/binomial/binomial-test';
 export { mergeCategories, type MergeOutcome } from './lib/merge/merge-categories';
+export { exactMultinomialTest, type ExactTestOptions, type ExactTestOutcome } from './lib/exact';
+export { exactResultMethods, TEST_LABELS, type ExactResultMethod, type TestLabel } from './lib/spec/vocabulary';
+export { upgradeStoredResult } from './lib/result/upgrade-stored-result';
+export { effectSizeWord } from './lib/effect-size/cohens-w';
+export { formatEffectSize, formatP, formatPAt, formatPValue, formatPValueAt } from './lib/report/format-numbers';
+export { standsOut, type Departure } from './lib/report/stands-out';
+export { SHARE_SUM_EXACT_TOLERANCE, SHARE_SUM_ROUNDING_TOLERANCE } from './lib/spec/share-tolerance';
 export {
-  exactMultinomialTest,
-  type ExactOrdering,
-  type ExactMethod,
-  type ExactTestOptions,
-  type ExactTestOutcome,
-} from './lib/exact';
+  analyzeSequential,
+  startSequential,
+  addSequentialBatch,
+  sequentialSpecSchema,
+  sequentialStartSchema,
+  sequentialStateSchema,
+  DEFAULT_CONCENTRATION,
+  logBayesFactor,
+  logMixtureProbability,
+  shareConfidenceInterval,
+  type SequentialResult,
+  type SequentialState,
+  type SequentialLook,
+  type SequentialShare,
+  type SequentialSpec,
+  type SequentialStartSpec,
+  type ShareInterval,
+} from './lib/sequential';

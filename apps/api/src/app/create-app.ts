@@ -25,6 +25,9 @@ import { reviewsRoutes } from './reviews/reviews.routes';
 import { studiesRoutes } from './studies/studies.routes';
 import { API_PREFIX, mountRoutes, type RouteDefinition } from './http/route-table';
 import { WriteHealth } from './storage/write-health';
+import { sourceConnectionsRoutes } from './watches/source-connections.routes';
+import { watchesRoutes } from './watches/watches.routes';
+import { startWatchRuntime, type WatchRuntime, type WatchRuntimeOptions } from './watches/watch-runtime';
 
 export interface AppContext {
   config: Config;
@@ -34,16 +37,20 @@ export interface AppContext {
   /** Mail delivery: the configured SMTP server or the local stand-in, started before the app. */
   mail: MailService;
   logger?: Logger;
+  /** How alert deliveries are retried and schedules re-read (tests shorten the waits). */
+  watchOptions?: Pick<WatchRuntimeOptions, 'delivery' | 'scheduleSyncMs'>;
 }
 
 export interface TallyfitApp {
   app: Express;
+  /** Scheduled pulls and alert deliveries, started with the app; stop it before closing the database. */
+  watches: WatchRuntime;
   /** Every API route with its access rule, for the OpenAPI document and the role matrix test. */
   routes: readonly RouteDefinition[];
 }
 
 /** Every resource's routes. A new resource is added here and nowhere else. */
-function allRoutes({ config, db, engine, mail }: AppContext, writeHealth: WriteHealth): RouteDefinition[] {
+function allRoutes({ config, db, engine, mail }: AppContext, watches: WatchRuntime, writeHealth: WriteHealth): RouteDefinition[] {
   const routes: RouteDefinition[] = [
     ...healthRoutes(db, writeHealth),
     ...authRoutes(db, config),
@@ -57,6 +64,8 @@ function allRoutes({ config, db, engine, mail }: AppContext, writeHealth: WriteH
     ...datasetsRoutes(db, config),
     ...reportsRoutes(db, config),
     ...sharesRoutes(db, config, mail),
+    ...watchesRoutes(watches.context, config.dataDir),
+    ...sourceConnectionsRoutes(db, config.secretKey),
   ];
   routes.push(...openApiRoutes(() => routes));
   return routes;
@@ -103,11 +112,12 @@ export function createApp(context: AppContext): TallyfitApp {
   const writeHealth = new WriteHealth(config.dataDir);
   app.use(writeHealth.noteSuccesses);
 
-  const routes = allRoutes(context, writeHealth);
+  const watches = startWatchRuntime({ db, engine: context.engine, mail: context.mail, config, logger, ...context.watchOptions });
+  const routes = allRoutes(context, watches, writeHealth);
   mountRoutes(app, routes, createAuthenticate(db, config.jwtSecret));
   app.use('/api', apiNotFound);
   if (config.consoleDir) serveConsole(app, config.consoleDir);
   app.use(writeHealth.noteFailures);
   app.use(errorHandler);
-  return { app, routes };
+  return { app, routes, watches };
 }

@@ -30,12 +30,10 @@ export function analysesRoutes(db: Knex, config: Pick<Config, 'dataDir'>, engine
         '(datasetId and selection; the chosen column(s) fill the observed counts)',
       request: { body: createAnalysisRequestSchema },
       responses: { 201: analysisRecordSchema },
-      handler: async ({ body, user, res }) => {
-        const analysis = isDatasetAnalysisRequest(body)
-          ? await createAnalysisFromDataset(db, config.dataDir, engine, user, body)
-          : await createAnalysis(db, engine, user, body);
-        res.status(201).json(analysis);
-      },
+      handler: ({ body, user }) =>
+        isDatasetAnalysisRequest(body)
+          ? createAnalysisFromDataset(db, config.dataDir, engine, user, body)
+          : createAnalysis(db, engine, user, body),
     }),
     defineRoute({
       method: 'get',
@@ -44,9 +42,7 @@ export function analysesRoutes(db: Knex, config: Pick<Config, 'dataDir'>, engine
       summary: 'The history: analyses the caller may read, paginated, sorted and filtered',
       request: { query: listAnalysesQuerySchema },
       responses: { 200: pageSchema(analysisSummarySchema) },
-      handler: async ({ query, user, res }) => {
-        res.json(await listAnalyses(db, user, query));
-      },
+      handler: ({ query, user }) => listAnalyses(db, user, query),
     }),
     defineRoute({
       method: 'get',
@@ -55,9 +51,7 @@ export function analysesRoutes(db: Knex, config: Pick<Config, 'dataDir'>, engine
       summary: 'One analysis with its spec and result',
       request: { params: idParamsSchema },
       responses: { 200: analysisRecordSchema },
-      handler: async ({ params, user, res }) => {
-        res.json(await getReadableAnalysis(db, user, params.id));
-      },
+      handler: ({ params, user }) => getReadableAnalysis(db, user, params.id),
     }),
     defineRoute({
       method: 'patch',
@@ -66,9 +60,7 @@ export function analysesRoutes(db: Knex, config: Pick<Config, 'dataDir'>, engine
       summary: 'Edit the title or notes of an analysis',
       request: { params: idParamsSchema, body: updateAnalysisRequestSchema },
       responses: { 200: analysisRecordSchema },
-      handler: async ({ params, body, user, res }) => {
-        res.json(await updateAnalysis(db, user, params.id, body));
-      },
+      handler: ({ params, body, user }) => updateAnalysis(db, user, params.id, body),
     }),
     defineRoute({
       method: 'delete',
@@ -77,10 +69,7 @@ export function analysesRoutes(db: Knex, config: Pick<Config, 'dataDir'>, engine
       summary: 'Delete an analysis and its versions (its author or an admin); the audit trail keeps the record',
       request: { params: idParamsSchema },
       responses: { 204: { description: 'deleted' } },
-      handler: async ({ params, user, res }) => {
-        await deleteAnalysis(db, user, params.id);
-        res.status(204).end();
-      },
+      handler: ({ params, user }) => deleteAnalysis(db, user, params.id),
     }),
     defineRoute({
       method: 'post',
@@ -89,9 +78,7 @@ export function analysesRoutes(db: Knex, config: Pick<Config, 'dataDir'>, engine
       summary: 'Run an analysis again as a new version, optionally with a changed spec; reports what changed',
       request: { params: idParamsSchema, body: rerunAnalysisRequestSchema },
       responses: { 201: rerunAnalysisResponseSchema },
-      handler: async ({ params, body, user, res }) => {
-        res.status(201).json(await rerunAnalysis(db, engine, user, params.id, body.spec));
-      },
+      handler: ({ params, body, user }) => rerunAnalysis(db, engine, user, params.id, body.spec),
     }),
     defineRoute({
       method: 'get',
@@ -100,9 +87,7 @@ export function analysesRoutes(db: Knex, config: Pick<Config, 'dataDir'>, engine
       summary: 'Every version of an analysis, oldest first',
       request: { params: idParamsSchema },
       responses: { 200: z.array(analysisSummarySchema) },
-      handler: async ({ params, user, res }) => {
-        res.json(await listVersions(db, user, params.id));
-      },
+      handler: ({ params, user }) => listVersions(db, user, params.id),
     }),
   ];
 }

@@ -12,9 +12,7 @@ export function auditRoutes(db: Knex): RouteDefinition[] {
       summary: 'The audit trail, newest first, filtered by person, action, record, study or time',
       request: { query: listAuditQuerySchema },
       responses: { 200: pageSchema(auditEventSchema) },
-      handler: async ({ query, res }) => {
-        res.json(await listAudit(db, query));
-      },
+      handler: ({ query }) => listAudit(db, query),
     }),
   ];
 }

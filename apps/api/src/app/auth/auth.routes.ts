@@ -18,9 +18,7 @@ export function authRoutes(db: Knex, config: AuthConfig): RouteDefinition[] {
       request: { body: loginRequestSchema },
       responses: { 200: loginResponseSchema },
       before: [loginRateLimit(db, config.loginAttemptsPer15Minutes)],
-      handler: async ({ body, res }) => {
-        res.json(await signIn(db, config, body.email, body.password));
-      },
+      handler: ({ body }) => signIn(db, config, body.email, body.password),
     }),
     defineRoute({
       method: 'post',
@@ -29,9 +27,7 @@ export function authRoutes(db: Knex, config: AuthConfig): RouteDefinition[] {
       summary: 'Exchange a refresh token for a new access token and a new refresh token (the old one stops working)',
       request: { body: refreshRequestSchema },
       responses: { 200: loginResponseSchema },
-      handler: async ({ body, res }) => {
-        res.json(await renewSession(db, config, body.refreshToken));
-      },
+      handler: ({ body }) => renewSession(db, config, body.refreshToken),
     }),
     defineRoute({
       method: 'post',
@@ -40,10 +36,7 @@ export function authRoutes(db: Knex, config: AuthConfig): RouteDefinition[] {
       summary: 'Sign out: the refresh token stops working and the person’s access tokens end at once (other sessions renew theirs)',
       request: { body: refreshRequestSchema },
       responses: { 204: { description: 'signed out' } },
-      handler: async ({ body, res }) => {
-        await signOut(db, body.refreshToken);
-        res.status(204).end();
-      },
+      handler: ({ body }) => signOut(db, body.refreshToken),
     }),
     defineRoute({
       method: 'get',
@@ -51,9 +44,7 @@ export function authRoutes(db: Knex, config: AuthConfig): RouteDefinition[] {
       access: 'account.use',
       summary: 'The signed-in person',
       responses: { 200: userSchema },
-      handler: ({ user, res }) => {
-        res.json(user);
-      },
+      handler: ({ user }) => user,
     }),
     defineRoute({
       method: 'post',
@@ -62,10 +53,7 @@ export function authRoutes(db: Knex, config: AuthConfig): RouteDefinition[] {
       summary: 'Change one’s own password (the current one is required); other sessions are signed out',
       request: { body: changePasswordRequestSchema },
       responses: { 204: { description: 'changed' } },
-      handler: async ({ body, user, res }) => {
-        await changeOwnPassword(db, user, body);
-        res.status(204).end();
-      },
+      handler: ({ body, user }) => changeOwnPassword(db, user, body),
     }),
   ];
 }

@@ -38,12 +38,12 @@ export function datasetsRoutes(db: Knex, config: Config): RouteDefinition[] {
       request: { params: studyParams, body: datasetUploadFieldsSchema, bodyContentType: 'multipart/form-data' },
       responses: { 201: datasetRecordSchema },
       before: [studyOpenToCaller, receiveDatasetFile(join(config.dataDir, 'uploads-in-progress'), config.uploadLimitBytes)],
-      handler: async ({ params, body, user, req, res }) => {
+      handler: ({ params, body, user, req }) => {
         // The upload middleware has received a file of a kind we read.
         const file = req.file!;
         const kind = fileKindOf(file.originalname)!;
         const upload = { path: file.path, originalName: file.originalname, sizeBytes: file.size, kind };
-        res.status(201).json(await createDataset(db, config.dataDir, user, params.studyId, upload, body));
+        return createDataset(db, config.dataDir, user, params.studyId, upload, body);
       },
     }),
     defineRoute({
@@ -54,9 +54,7 @@ export function datasetsRoutes(db: Knex, config: Config): RouteDefinition[] {
       tag: 'datasets',
       request: { params: studyParams },
       responses: { 200: z.array(datasetSummarySchema) },
-      handler: async ({ params, user, res }) => {
-        res.json(await listDatasets(db, user, params.studyId));
-      },
+      handler: ({ params, user }) => listDatasets(db, user, params.studyId),
     }),
     defineRoute({
       method: 'get',
@@ -65,9 +63,7 @@ export function datasetsRoutes(db: Knex, config: Config): RouteDefinition[] {
       summary: 'One dataset with its columns, preview, offered counts and chosen counts',
       request: { params: idParamsSchema },
       responses: { 200: datasetRecordSchema },
-      handler: async ({ params, user, res }) => {
-        res.json(await getReadableDataset(db, user, params.id));
-      },
+      handler: ({ params, user }) => getReadableDataset(db, user, params.id),
     }),
     defineRoute({
       method: 'post',
@@ -76,9 +72,7 @@ export function datasetsRoutes(db: Knex, config: Config): RouteDefinition[] {
       summary: 'Choose the column(s) that hold the categories; answers and keeps their counts',
       request: { params: idParamsSchema, body: countSelectionSchema },
       responses: { 200: categoryCountsSchema },
-      handler: async ({ params, body, user, res }) => {
-        res.json(await chooseCounts(db, config.dataDir, user, params.id, body));
-      },
+      handler: ({ params, body, user }) => chooseCounts(db, config.dataDir, user, params.id, body),
     }),
     defineRoute({
       method: 'delete',
@@ -87,10 +81,7 @@ export function datasetsRoutes(db: Knex, config: Config): RouteDefinition[] {
       summary: 'Delete a dataset (its uploader or an admin); analyses that used it keep its name',
       request: { params: idParamsSchema },
       responses: { 204: { description: 'deleted' } },
-      handler: async ({ params, user, res }) => {
-        await deleteDataset(db, config.dataDir, user, params.id);
-        res.status(204).end();
-      },
+      handler: ({ params, user }) => deleteDataset(db, config.dataDir, user, params.id),
     }),
   ];
 }

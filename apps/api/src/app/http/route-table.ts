@@ -68,13 +68,17 @@ export interface RouteSpec<
   basePath?: string;
   /** Middleware run after the access check and the params check, before the body is parsed (a rate limit, an upload parser). */
   before?: RequestHandler[];
-  handler: (input: RouteInput<Parsed<Params>, Parsed<Query>, Parsed<Body>, CallerOf<Access>>) => Promise<void> | void;
+  /**
+   * Answers the request: return the body (sent as JSON with the route's success status, or an
+   * empty 204), or write `res` yourself for a file, a redirect or a status chosen at run time.
+   */
+  handler: (input: RouteInput<Parsed<Params>, Parsed<Query>, Parsed<Body>, CallerOf<Access>>) => unknown;
 }
 
 /** A declared route with its input types erased, as the table, the mounter and the document see it. */
 export type RouteDefinition = Omit<RouteSpec<RouteAccess, z.ZodType, z.ZodType, z.ZodType>, 'handler' | 'request'> & {
   request?: RouteRequestSchemas<z.ZodType, z.ZodType, z.ZodType>;
-  handler: (input: RouteInput<unknown, unknown, unknown, User | undefined>) => Promise<void> | void;
+  handler: (input: RouteInput<unknown, unknown, unknown, User | undefined>) => unknown;
 };
 
 /** Declares one route; the handler's input is typed from the route's own schemas. */
@@ -144,11 +148,16 @@ function parseParams(route: RouteDefinition): RequestHandler {
 /** What a body-less request's body reads as, so `{}`-shaped schemas accept an empty POST. */
 const bodyOf = (req: Request): unknown => req.body ?? {};
 
+/** The status a returned body is sent with: the route's first declared success. */
+const successStatus = (route: RouteDefinition): number =>
+  Math.min(...Object.keys(route.responses).map(Number).filter((status) => status >= 200 && status < 300));
+
 function handle(route: RouteDefinition): RequestHandler {
   const { query, body } = route.request ?? {};
+  const status = successStatus(route);
   return async (req: Request, res: Response, next: NextFunction) => {
     try {
-      await route.handler({
+      const answer = await route.handler({
         params: (req as WithParsedParams)[PARSED_PARAMS],
         query: query ? parseInput(query, req.query, 'query') : undefined,
         body: body ? parseInput(body, bodyOf(req), 'body') : undefined,
@@ -156,6 +165,9 @@ function handle(route: RouteDefinition): RequestHandler {
         req,
         res,
       });
+      if (res.headersSent) return;
+      if (answer === undefined) res.status(status).end();
+      else res.status(status).json(answer);
     } catch (error) {
       next(error);
     }

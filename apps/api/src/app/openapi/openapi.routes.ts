@@ -41,10 +41,7 @@ export function openApiRoutes(routes: () => readonly RouteDefinition[]): RouteDe
       summary: 'This API described in OpenAPI 3',
       tag: 'docs',
       responses: { 200: z.record(z.string(), z.unknown()) },
-      handler: ({ res }) => {
-        document ??= buildOpenApiDocument(routes());
-        res.json(document);
-      },
+      handler: () => (document ??= buildOpenApiDocument(routes())),
     }),
     defineRoute({
       method: 'get',

@@ -14,9 +14,7 @@ export function peopleRoutes(db: Knex): RouteDefinition[] {
       access: 'people.manage',
       summary: 'Everyone who can sign in, including disabled accounts',
       responses: { 200: z.array(personSchema) },
-      handler: async ({ res }) => {
-        res.json(await listPeople(db));
-      },
+      handler: () => listPeople(db),
     }),
     defineRoute({
       method: 'get',
@@ -24,9 +22,9 @@ export function peopleRoutes(db: Knex): RouteDefinition[] {
       access: 'people.directory',
       summary: 'Names, e-mails and roles of active people, for choosing study members',
       responses: { 200: z.array(directoryEntrySchema) },
-      handler: async ({ res }) => {
+      handler: async () => {
         const people = await listPeople(db, { enabledOnly: true });
-        res.json(people.map(({ id, name, email, role }) => ({ id, name, email, role })));
+        return people.map(({ id, name, email, role }) => ({ id, name, email, role }));
       },
     }),
     defineRoute({
@@ -36,9 +34,7 @@ export function peopleRoutes(db: Knex): RouteDefinition[] {
       summary: 'Add a person with a role and a first password',
       request: { body: createPersonRequestSchema },
       responses: { 201: personSchema },
-      handler: async ({ body, user, res }) => {
-        res.status(201).json(await createPerson(db, user, body));
-      },
+      handler: ({ body, user }) => createPerson(db, user, body),
     }),
     defineRoute({
       method: 'get',
@@ -47,9 +43,7 @@ export function peopleRoutes(db: Knex): RouteDefinition[] {
       summary: 'One person',
       request: { params: idParamsSchema },
       responses: { 200: personSchema },
-      handler: async ({ params, res }) => {
-        res.json(await getPerson(db, params.id));
-      },
+      handler: ({ params }) => getPerson(db, params.id),
     }),
     defineRoute({
       method: 'patch',
@@ -58,9 +52,7 @@ export function peopleRoutes(db: Knex): RouteDefinition[] {
       summary: 'Rename a person, change their role, or disable or enable their account',
       request: { params: idParamsSchema, body: updatePersonRequestSchema },
       responses: { 200: personSchema },
-      handler: async ({ params, body, user, res }) => {
-        res.json(await updatePerson(db, user, params.id, body));
-      },
+      handler: ({ params, body, user }) => updatePerson(db, user, params.id, body),
     }),
   ];
 }

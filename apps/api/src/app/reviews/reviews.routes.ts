@@ -13,44 +13,27 @@ import {
 import { defineRoute, type RouteDefinition } from '../http/route-table';
 import { addComment, decideReview, listComments, listReviews } from './reviews.service';
 
+/** The review decisions, each its own route: who may take it, and what its body must hold. */
+const DECISIONS = [
+  { decision: 'submitted', path: 'submit', access: 'analyses.run', summary: 'Submit an analysis for review (its author)', body: submitForReviewRequestSchema },
+  { decision: 'signed_off', path: 'sign-off', access: 'analyses.review', summary: 'Sign off an analysis that is in review', body: signOffRequestSchema },
+  { decision: 'returned', path: 'return', access: 'analyses.review', summary: 'Return an analysis in review to its author, saying why', body: returnAnalysisRequestSchema },
+] as const;
+
 export function reviewsRoutes(db: Knex): RouteDefinition[] {
   return [
-    defineRoute({
-      method: 'post',
-      path: '/analyses/:id/submit',
-      access: 'analyses.run',
-      summary: 'Submit an analysis for review (its author)',
-      tag: 'reviews',
-      request: { params: idParamsSchema, body: submitForReviewRequestSchema },
-      responses: { 200: analysisRecordSchema },
-      handler: async ({ params, body, user, res }) => {
-        res.json(await decideReview(db, user, params.id, 'submitted', body.comment));
-      },
-    }),
-    defineRoute({
-      method: 'post',
-      path: '/analyses/:id/sign-off',
-      access: 'analyses.review',
-      summary: 'Sign off an analysis that is in review',
-      tag: 'reviews',
-      request: { params: idParamsSchema, body: signOffRequestSchema },
-      responses: { 200: analysisRecordSchema },
-      handler: async ({ params, body, user, res }) => {
-        res.json(await decideReview(db, user, params.id, 'signed_off', body.comment));
-      },
-    }),
-    defineRoute({
-      method: 'post',
-      path: '/analyses/:id/return',
-      access: 'analyses.review',
-      summary: 'Return an analysis in review to its author, saying why',
-      tag: 'reviews',
-      request: { params: idParamsSchema, body: returnAnalysisRequestSchema },
-      responses: { 200: analysisRecordSchema },
-      handler: async ({ params, body, user, res }) => {
-        res.json(await decideReview(db, user, params.id, 'returned', body.comment));
-      },
-    }),
+    ...DECISIONS.map(({ decision, path, access, summary, body }) =>
+      defineRoute({
+        method: 'post',
+        path: `/analyses/:id/${path}`,
+        access,
+        summary,
+        tag: 'reviews',
+        request: { params: idParamsSchema, body },
+        responses: { 200: analysisRecordSchema },
+        handler: ({ params, body: { comment }, user }) => decideReview(db, user, params.id, decision, comment),
+      }),
+    ),
     defineRoute({
       method: 'get',
       path: '/analyses/:id/reviews',
@@ -59,9 +42,7 @@ export function reviewsRoutes(db: Knex): RouteDefinition[] {
       tag: 'reviews',
       request: { params: idParamsSchema },
       responses: { 200: z.array(reviewSchema) },
-      handler: async ({ params, user, res }) => {
-        res.json(await listReviews(db, user, params.id));
-      },
+      handler: ({ params, user }) => listReviews(db, user, params.id),
     }),
     defineRoute({
       method: 'get',
@@ -71,9 +52,7 @@ export function reviewsRoutes(db: Knex): RouteDefinition[] {
       tag: 'reviews',
       request: { params: idParamsSchema },
       responses: { 200: z.array(commentSchema) },
-      handler: async ({ params, user, res }) => {
-        res.json(await listComments(db, user, params.id));
-      },
+      handler: ({ params, user }) => listComments(db, user, params.id),
     }),
     defineRoute({
       method: 'post',
@@ -83,9 +62,7 @@ export function reviewsRoutes(db: Knex): RouteDefinition[] {
       tag: 'reviews',
       request: { params: idParamsSchema, body: createCommentRequestSchema },
       responses: { 201: commentSchema },
-      handler: async ({ params, body, user, res }) => {
-        res.status(201).json(await addComment(db, user, params.id, body.body));
-      },
+      handler: ({ params, body, user }) => addComment(db, user, params.id, body.body),
     }),
   ];
 }

@@ -16,9 +16,7 @@ export function sharesRoutes(db: Knex, config: Config, mail: MailService): Route
       tag: 'shares',
       request: { params: idParamsSchema, body: createShareRequestSchema },
       responses: { 201: shareSchema },
-      handler: async ({ params, body, user, res }) => {
-        res.status(201).json(await shareAnalysis(db, config, mail, user, params.id, body));
-      },
+      handler: ({ params, body, user }) => shareAnalysis(db, config, mail, user, params.id, body),
     }),
     defineRoute({
       method: 'get',
@@ -28,9 +26,7 @@ export function sharesRoutes(db: Knex, config: Config, mail: MailService): Route
       tag: 'shares',
       request: { params: idParamsSchema },
       responses: { 200: z.array(shareSchema) },
-      handler: async ({ params, user, res }) => {
-        res.json(await listShares(db, user, params.id));
-      },
+      handler: ({ params, user }) => listShares(db, user, params.id),
     }),
     defineRoute({
       method: 'get',
@@ -39,9 +35,9 @@ export function sharesRoutes(db: Knex, config: Config, mail: MailService): Route
       summary: "What the built-in mail stand-in received, newest first (empty when mail goes to a real server)",
       tag: 'shares',
       responses: { 200: outboxSchema },
-      handler: ({ res }) => {
+      handler: (): Outbox => {
         const messages = mail.outbox();
-        const outbox: Outbox = {
+        return {
           available: messages !== undefined,
           destination: mail.destination,
           messages: (messages ?? []).map((message) => ({
@@ -54,7 +50,6 @@ export function sharesRoutes(db: Knex, config: Config, mail: MailService): Route
             attachments: message.attachments.map(({ fileName, contentType, sizeBytes }) => ({ fileName, contentType, sizeBytes })),
           })),
         };
-        res.json(outbox);
       },
     }),
   ];

@@ -5,8 +5,11 @@ import Database from 'better-sqlite3';
 import { SQLITE_FILE } from './data-folder';
 import { lockDataFolder } from './data-folder-lock';
 
-/** Besides the database: the datasets people uploaded, the generated signing secret, the demo sign-ins. */
-const KEPT_BESIDE = ['datasets', 'jwt-secret', 'demo-sign-ins.json'];
+/**
+ * Besides the database: the datasets people uploaded, the generated signing secret, the key that
+ * encrypts stored credentials (without it they cannot be read) and the demo sign-ins.
+ */
+const KEPT_BESIDE = ['datasets', 'jwt-secret', 'secret-key', 'demo-sign-ins.json'];
 const MANIFEST = 'manifest.json';
 
 export interface BackupManifest {

@@ -31,9 +31,7 @@ export function studiesRoutes(db: Knex): RouteDefinition[] {
       summary: 'The studies the caller may read (leads and admins: all), by name',
       request: { query: listStudiesQuerySchema },
       responses: { 200: z.array(studySchema) },
-      handler: async ({ query, user, res }) => {
-        res.json(await listStudies(db, user, query.includeArchived));
-      },
+      handler: ({ query, user }) => listStudies(db, user, query.includeArchived),
     }),
     defineRoute({
       method: 'post',
@@ -42,9 +40,7 @@ export function studiesRoutes(db: Knex): RouteDefinition[] {
       summary: 'Create a study; its creator becomes its owner',
       request: { body: createStudyRequestSchema },
       responses: { 201: studyDetailSchema },
-      handler: async ({ body, user, res }) => {
-        res.status(201).json(await createStudy(db, user, body));
-      },
+      handler: ({ body, user }) => createStudy(db, user, body),
     }),
     defineRoute({
       method: 'get',
@@ -53,9 +49,7 @@ export function studiesRoutes(db: Knex): RouteDefinition[] {
       summary: 'One study with its members',
       request: { params: idParamsSchema },
       responses: { 200: studyDetailSchema },
-      handler: async ({ params, user, res }) => {
-        res.json(await getStudy(db, user, params.id));
-      },
+      handler: ({ params, user }) => getStudy(db, user, params.id),
     }),
     defineRoute({
       method: 'patch',
@@ -64,9 +58,7 @@ export function studiesRoutes(db: Knex): RouteDefinition[] {
       summary: 'Rename, describe, archive or restore a study (its owners and admins)',
       request: { params: idParamsSchema, body: updateStudyRequestSchema },
       responses: { 200: studyDetailSchema },
-      handler: async ({ params, body, user, res }) => {
-        res.json(await updateStudy(db, user, params.id, body));
-      },
+      handler: ({ params, body, user }) => updateStudy(db, user, params.id, body),
     }),
     defineRoute({
       method: 'post',
@@ -75,9 +67,7 @@ export function studiesRoutes(db: Knex): RouteDefinition[] {
       summary: 'Add a person to a study with a study role',
       request: { params: idParamsSchema, body: addStudyMemberRequestSchema },
       responses: { 201: studyDetailSchema },
-      handler: async ({ params, body, user, res }) => {
-        res.status(201).json(await addStudyMember(db, user, params.id, body));
-      },
+      handler: ({ params, body, user }) => addStudyMember(db, user, params.id, body),
     }),
     defineRoute({
       method: 'patch',
@@ -86,9 +76,7 @@ export function studiesRoutes(db: Knex): RouteDefinition[] {
       summary: "Change a member's role in the study",
       request: { params: studyMemberParamsSchema, body: updateStudyMemberRequestSchema },
       responses: { 200: studyDetailSchema },
-      handler: async ({ params, body, user, res }) => {
-        res.json(await updateStudyMember(db, user, params.id, params.userId, body.studyRole));
-      },
+      handler: ({ params, body, user }) => updateStudyMember(db, user, params.id, params.userId, body.studyRole),
     }),
     defineRoute({
       method: 'delete',
@@ -97,10 +85,7 @@ export function studiesRoutes(db: Knex): RouteDefinition[] {
       summary: 'Remove a person from a study',
       request: { params: studyMemberParamsSchema },
       responses: { 204: { description: 'removed' } },
-      handler: async ({ params, user, res }) => {
-        await removeStudyMember(db, user, params.id, params.userId);
-        res.status(204).end();
-      },
+      handler: ({ params, user }) => removeStudyMember(db, user, params.id, params.userId),
     }),
   ];
 }

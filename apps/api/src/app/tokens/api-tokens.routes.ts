@@ -22,11 +22,11 @@ export function apiTokensRoutes(db: Knex): RouteDefinition[] {
       tag: 'tokens',
       request: { query: listTokensQuerySchema },
       responses: { 200: z.array(apiTokenSchema) },
-      handler: async ({ query: { owner }, user, res }) => {
+      handler: ({ query: { owner }, user }) => {
         if (owner !== 'me' && Number(owner) !== user.id && !can(user.role, 'people.manage')) {
           throw forbidden("only an admin may list other people's tokens");
         }
-        res.json(await listApiTokens(db, owner === 'me' ? user.id : owner === 'all' ? 'all' : Number(owner)));
+        return listApiTokens(db, owner === 'me' ? user.id : owner === 'all' ? 'all' : Number(owner));
       },
     }),
     defineRoute({
@@ -37,9 +37,7 @@ export function apiTokensRoutes(db: Knex): RouteDefinition[] {
       tag: 'tokens',
       request: { body: createApiTokenRequestSchema },
       responses: { 201: createdApiTokenSchema },
-      handler: async ({ body, user, res }) => {
-        res.status(201).json(await createApiToken(db, user, body.name));
-      },
+      handler: ({ body, user }) => createApiToken(db, user, body.name),
     }),
     defineRoute({
       method: 'delete',
@@ -49,9 +47,7 @@ export function apiTokensRoutes(db: Knex): RouteDefinition[] {
       tag: 'tokens',
       request: { params: idParamsSchema },
       responses: { 200: apiTokenSchema },
-      handler: async ({ params, user, res }) => {
-        res.json(await revokeApiToken(db, user, params.id));
-      },
+      handler: ({ params, user }) => revokeApiToken(db, user, params.id),
     }),
   ];
 }
