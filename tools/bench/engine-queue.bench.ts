@@ -9,7 +9,7 @@
  *
  * Options: --skip-build (use the existing dist/apps/api).
  */
-import { availableParallelism } from 'node:os';
+import { availableParallelism, loadavg } from 'node:os';
 import { join } from 'node:path';
 import { buildApi, startBuiltServer, type BuiltServer } from './api/built-server';
 
@@ -109,7 +109,9 @@ async function main(): Promise<void> {
     const widths = [0, 1, 2, 3].map((i) => Math.max(headers[i].length, ...rows.map((row) => row[i].length)));
     const line = (cells: string[]) => `| ${cells.map((cell, i) => (i === 0 ? cell.padEnd(widths[i]) : cell.padStart(widths[i]))).join(' | ')} |`;
     const rule = `| ${widths.map((w, i) => (i === 0 ? '-'.repeat(w) : '-'.repeat(w - 1) + ':')).join(' | ')} |`;
-    process.stdout.write(`\nTallyfit engine queue benchmark (node ${process.version}, ${availableParallelism()} cores, loopback, built server)\n\n`);
+    // The machine's load matters: on a shared machine other work competes with both columns.
+    const load = loadavg().map((value) => value.toFixed(1)).join(' / ');
+    process.stdout.write(`\nTallyfit engine queue benchmark (node ${process.version}, ${availableParallelism()} cores, load ${load} over 1/5/15 min, loopback, built server)\n\n`);
     process.stdout.write([line(headers), rule, ...rows.map(line)].join('\n') + '\n');
     const ended = [...endings].sort().map(([ending, count]) => `${count} × ${ending}`).join(', ');
     process.stdout.write(`\nThe ${LONG_RUNS} long runs ended: ${ended}\n`);
