@@ -14,6 +14,7 @@ import * as createWatches from './20261202-0041-create-watches';
 import * as createWatchBatches from './20261202-0042-create-watch-batches';
 import * as createWatchAlerts from './20261202-0043-create-watch-alerts';
 import * as createWatchPullTicks from './20261202-0044-create-watch-pull-ticks';
+import * as sessionsAndSignInAttempts from './20261202-0050-sessions-and-sign-in-attempts';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -40,6 +41,7 @@ const migrations: ReadonlyArray<readonly [name: string, migration: Migration]> =
   ['20261202-0042-create-watch-batches', createWatchBatches],
   ['20261202-0043-create-watch-alerts', createWatchAlerts],
   ['20261202-0044-create-watch-pull-ticks', createWatchPullTicks],
+  ['20261202-0050-sessions-and-sign-in-attempts', sessionsAndSignInAttempts],
 ];
 
 export const migrationSource: Knex.MigrationSource<Migration> = {

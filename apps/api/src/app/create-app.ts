@@ -24,6 +24,7 @@ import { apiNotFound, errorHandler } from './http/error-handler';
 import { reviewsRoutes } from './reviews/reviews.routes';
 import { studiesRoutes } from './studies/studies.routes';
 import { API_PREFIX, mountRoutes, type RouteDefinition } from './http/route-table';
+import { WriteHealth } from './storage/write-health';
 import { sourceConnectionsRoutes } from './watches/source-connections.routes';
 import { watchesRoutes } from './watches/watches.routes';
 import { startWatchRuntime, type WatchRuntime, type WatchRuntimeOptions } from './watches/watch-runtime';
@@ -49,9 +50,9 @@ export interface TallyfitApp {
 }
 
 /** Every resource's routes. A new resource is added here and nowhere else. */
-function allRoutes({ config, db, engine, mail }: AppContext, watches: WatchRuntime): RouteDefinition[] {
+function allRoutes({ config, db, engine, mail }: AppContext, watches: WatchRuntime, writeHealth: WriteHealth): RouteDefinition[] {
   const routes: RouteDefinition[] = [
-    ...healthRoutes(db),
+    ...healthRoutes(db, writeHealth),
     ...authRoutes(db, config),
     ...peopleRoutes(db),
     ...apiTokensRoutes(db),
@@ -80,7 +81,8 @@ export function createApp(context: AppContext): TallyfitApp {
   const logger = context.logger ?? pino({ level: config.logLevel });
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // Forwarded headers are believed only from the proxies TRUST_PROXY names (none by default).
+  app.set('trust proxy', config.trustProxy);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -102,12 +104,20 @@ export function createApp(context: AppContext): TallyfitApp {
   );
   app.use(cors({ origin: config.consoleOrigin ?? false }));
   app.use(express.json({ limit: '1mb' }));
+  // API answers carry tokens and personal data: no browser or proxy may keep a copy.
+  app.use(API_PREFIX, (_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
+  const writeHealth = new WriteHealth(config.dataDir);
+  app.use(writeHealth.noteSuccesses);
 
   const watches = startWatchRuntime({ db, engine: context.engine, mail: context.mail, config, logger, ...context.watchOptions });
-  const routes = allRoutes(context, watches);
+  const routes = allRoutes(context, watches, writeHealth);
   mountRoutes(app, routes, createAuthenticate(db, config.jwtSecret));
   app.use('/api', apiNotFound);
   if (config.consoleDir) serveConsole(app, config.consoleDir);
+  app.use(writeHealth.noteFailures);
   app.use(errorHandler);
   return { app, routes, watches };
 }
