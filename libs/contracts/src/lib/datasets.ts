@@ -38,6 +38,21 @@ export const categoryCountsSchema = z.object({
 });
 export type CategoryCounts = z.infer<typeof categoryCountsSchema>;
 
+/** The counts of a raw category column split by a second column: one row of counts per segment. */
+export const segmentCountsSchema = z.object({
+  selection: countSelectionSchema,
+  segmentColumn: z.string(),
+  /** the categories, in the same order in every segment */
+  labels: z.array(z.string()),
+  segments: z.array(z.object({ segment: z.string(), counts: z.array(z.number().int()), total: z.number().int() })),
+  total: z.number().int(),
+  /** rows left out because the category was empty */
+  skippedEmpty: z.number().int(),
+  /** rows left out of the segments because the segment column was empty */
+  skippedEmptySegment: z.number().int(),
+});
+export type SegmentCounts = z.infer<typeof segmentCountsSchema>;
+
 export const datasetSummarySchema = z.object({
   id: z.number().int(),
   studyId: z.number().int(),
@@ -72,6 +87,8 @@ export const datasetUploadFieldsSchema = z.union([countSelectionSchema, z.object
 /** Limits the upload and its summaries keep to (the API states them; the console shows them). */
 export const DATASET_PREVIEW_ROWS = 20;
 export const DATASET_MAX_CATEGORIES = 1000;
+/** Each segment is a test of its own; a family larger than this is no longer read segment by segment. */
+export const DATASET_MAX_SEGMENTS = 200;
 
 /**
  * An analysis of a dataset's counts: the selection says which column(s) hold them, `spec` is the

@@ -2,14 +2,11 @@ import type { CategoryCounts, CountSelection } from '@tallyfit/contracts';
 import { DATASET_MAX_CATEGORIES } from '@tallyfit/contracts';
 import { DatasetFormatError } from './dataset-format-error';
 
-/** Accumulates category counts row by row, in constant memory per category. */
+/** Accumulates category counts row by row (raw rows are counted by bytes in row-counter.ts). */
 export interface CategoryTally {
   add(cells: string[], where: () => string): void;
   finish(): CategoryCounts;
 }
-
-/** Sorts labels so digits and numbered categories read naturally (2 before 10). */
-const naturalOrder = new Intl.Collator('en', { numeric: true, sensitivity: 'variant' }).compare;
 
 /** A whole number ≥ 0 written plainly ("12", "12.0"), as a count column holds. */
 export function parseCount(text: string): number | undefined {
@@ -18,7 +15,8 @@ export function parseCount(text: string): number | undefined {
   return Number.isSafeInteger(value) ? value : undefined;
 }
 
-function columnIndex(header: string[], name: string, role: string): number {
+/** Where the named column is in the header; an error naming the columns when it is not there. */
+export function columnIndex(header: string[], name: string, role: string): number {
   const index = header.indexOf(name);
   if (index === -1) {
     throw new DatasetFormatError('line 1', `there is no column named "${name}" for the ${role}; the columns are ${header.map((h) => `"${h}"`).join(', ')}`);
@@ -26,41 +24,8 @@ function columnIndex(header: string[], name: string, role: string): number {
   return index;
 }
 
-/** Raw rows: each row is one observation and `column` holds its category. Empty cells are skipped and counted. */
-function rawTally(header: string[], selection: Extract<CountSelection, { shape: 'raw' }>): CategoryTally {
-  const index = columnIndex(header, selection.column, 'categories');
-  const counts = new Map<string, number>();
-  let skippedEmpty = 0;
-  return {
-    add(cells, where) {
-      const label = cells[index].trim();
-      if (label === '') {
-        skippedEmpty++;
-        return;
-      }
-      const seen = counts.get(label);
-      if (seen !== undefined) {
-        counts.set(label, seen + 1);
-        return;
-      }
-      if (counts.size >= DATASET_MAX_CATEGORIES) {
-        throw new DatasetFormatError(
-          where(),
-          `column "${selection.column}" has more than ${DATASET_MAX_CATEGORIES} different values, too many for categories; pick the column that holds the category of each row`,
-        );
-      }
-      counts.set(label, 1);
-    },
-    finish() {
-      const labels = [...counts.keys()].sort(naturalOrder);
-      const values = labels.map((label) => counts.get(label)!);
-      return { selection, labels, counts: values, total: values.reduce((a, b) => a + b, 0), skippedEmpty };
-    },
-  };
-}
-
 /** A table of counts: one row per category, its label in one column and how many were seen in another. */
-function countsTableTally(header: string[], selection: Extract<CountSelection, { shape: 'counts' }>): CategoryTally {
+export function countsTableTally(header: string[], selection: Extract<CountSelection, { shape: 'counts' }>): CategoryTally {
   const labelIndex = columnIndex(header, selection.labelColumn, 'labels');
   const countIndex = columnIndex(header, selection.countColumn, 'counts');
   if (labelIndex === countIndex) throw new DatasetFormatError('line 1', 'the label column and the count column must be different columns');
@@ -98,8 +63,4 @@ function countsTableTally(header: string[], selection: Extract<CountSelection, {
       return { selection, labels, counts, total: counts.reduce((a, b) => a + b, 0), skippedEmpty };
     },
   };
-}
-
-export function createCategoryTally(header: string[], selection: CountSelection): CategoryTally {
-  return selection.shape === 'raw' ? rawTally(header, selection) : countsTableTally(header, selection);
 }
