@@ -1,8 +1,10 @@
 /**
- * The dataset scan worker: counts one byte range of an uploaded text table in its own thread
- * (built beside main.js as dataset-scan-worker.js) and posts the outcome back as data.
+ * The dataset scan worker: piscina loads this file in each thread of the API's scan pool (built
+ * beside main.js as dataset-scan-worker.js); each task counts one byte range of a text table and
+ * answers the outcome as data.
  */
-import { parentPort, workerData } from 'node:worker_threads';
-import { runRangeJob, type RangeJob } from './app/datasets/range-count';
+import { runRangeJob, type RangeJob, type RangeOutcome } from './app/datasets/range-count';
 
-parentPort?.postMessage(runRangeJob(workerData as RangeJob));
+export function countRange(job: RangeJob): RangeOutcome {
+  return runRangeJob(job);
+}

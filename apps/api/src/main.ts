@@ -5,6 +5,7 @@ import { createApp } from './app/create-app';
 import { migrateToLatest, openDatabase } from './app/database';
 import { seedDemo } from './app/demo/demo-seed';
 import { join } from 'node:path';
+import { closeScanPools } from './app/datasets/range-threads';
 import { createEnginePool } from './app/engine/engine-pool';
 import { startMailService } from './app/mail/mail-service';
 
@@ -36,7 +37,7 @@ async function main(): Promise<void> {
   });
 
   const shutdown = () => {
-    server.close(() => void Promise.all([engine.close(), mail.stop(), db.destroy()]).then(() => process.exit(0)));
+    server.close(() => void Promise.all([engine.close(), closeScanPools(), mail.stop(), db.destroy()]).then(() => process.exit(0)));
   };
   process.on('SIGINT', shutdown);
   process.on('SIGTERM', shutdown);

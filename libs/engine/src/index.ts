@@ -54,3 +54,16 @@ export {
   type ExactTestOptions,
   type ExactTestOutcome,
 } from './lib/exact';
+export {
+  analyzeSegments,
+  segmentsInputSchema,
+  segmentAdjustMethods,
+  MAX_SEGMENTS,
+  type SegmentsInput,
+  type SegmentsResult,
+  type SegmentRow,
+  type SegmentDriver,
+  type SegmentFlag,
+  type SegmentAdjustMethod,
+} from './lib/segments/analyze-segments';
+export { adjustPValues } from './lib/posthoc/adjust-p-values';

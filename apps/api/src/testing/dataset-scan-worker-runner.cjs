@@ -4,4 +4,4 @@
 const { join } = require('node:path');
 process.env.TSX_TSCONFIG_PATH = join(__dirname, '../../../../tsconfig.base.json');
 require('tsx/cjs/api').register();
-require('../dataset-scan-worker.ts');
+module.exports = require('../dataset-scan-worker.ts');

@@ -72,6 +72,8 @@ export function scanDelimitedRange(path: string, options: ScanRangeOptions, sink
     let atEof = false;
     let line = 1;
     let rowStart = 0; // index in `bytes` of the row being read
+    let nextQuote = -1; // index of the next quote at or after rowStart (filled when none); stale when below rowStart
+    const plain: PlainRowsState = { at: 0, line: 1, stop: false };
     // Reading on is written out where it happens (not as a closure) so these locals stay in registers.
     chunks.refill(rowStart, filled, line);
     bytes = chunks.bytes;
@@ -85,7 +87,23 @@ export function scanDelimitedRange(path: string, options: ScanRangeOptions, sink
         filled = chunks.filled;
         atEof = chunks.atEof;
         rowStart = 0;
+        nextQuote = -1;
         continue;
+      }
+      // Rows before the next quote need no quote handling: read them in a tight loop.
+      if (nextQuote < rowStart) {
+        const at = bytes.indexOf(QUOTE, rowStart);
+        nextQuote = at === -1 || at >= filled ? filled : at;
+      }
+      if (nextQuote > rowStart) {
+        plain.at = rowStart;
+        plain.line = line;
+        plainRows(bytes, nextQuote, end - chunks.base, delimiter, row, sink, plain);
+        const moved = plain.at !== rowStart;
+        rowStart = plain.at;
+        line = plain.line;
+        if (plain.stop) break;
+        if (moved) continue;
       }
       // Read one row from rowStart; `complete` says whether it ended inside the bytes held.
       let i = rowStart;
@@ -278,6 +296,61 @@ class ChunkReader {
   close(): void {
     closeSync(this.fd);
   }
+}
+
+interface PlainRowsState {
+  /** in: where to start; out: the start of the first row not read */
+  at: number;
+  line: number;
+  /** the sink asked to stop */
+  stop: boolean;
+}
+
+/**
+ * Reads the rows that start before `endAt` and end (in a line break) before `quoteAt`, where no
+ * quote can occur: one comparison per byte for the separator and one for the line break.
+ */
+function plainRows(bytes: Uint8Array, quoteAt: number, endAt: number, delimiter: number, row: RowFields, sink: RowSink, state: PlainRowsState): void {
+  const { starts, ends } = row;
+  const capacity = starts.length;
+  let i = state.at;
+  let line = state.line;
+  while (i < endAt) {
+    let count = 0;
+    let fieldStart = i;
+    let j = i;
+    for (; j < quoteAt; j++) {
+      const b = bytes[j];
+      if (b === delimiter) {
+        if (count < capacity) {
+          starts[count] = fieldStart;
+          ends[count] = j;
+        }
+        count++;
+        fieldStart = j + 1;
+      } else if (b === LF) break;
+    }
+    if (j >= quoteAt) break; // the row runs into a quote or past the bytes held
+    const fieldEnd = j > fieldStart && bytes[j - 1] === CR ? j - 1 : j;
+    if (count < capacity) {
+      starts[count] = fieldStart;
+      ends[count] = fieldEnd;
+    }
+    count++;
+    const rowLine = line++;
+    i = j + 1;
+    if (count === 1 && fieldEnd === fieldStart) continue; // an empty line is no row
+    row.bytes = bytes;
+    row.count = count;
+    row.line = rowLine;
+    if (sink(row) === true) {
+      state.stop = true;
+      i = j + 1;
+      break;
+    }
+  }
+  state.at = i;
+  state.line = line;
 }
 
 /** Turns each "" into " in place; answers the field's new end. */
