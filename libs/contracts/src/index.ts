@@ -12,3 +12,4 @@ export * from './lib/audit';
 export * from './lib/reviews';
 export * from './lib/datasets';
 export * from './lib/shares';
+export * from './lib/count-text';

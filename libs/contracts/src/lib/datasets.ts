@@ -35,6 +35,8 @@ export const categoryCountsSchema = z.object({
   total: z.number().int(),
   /** rows left out because the category (or its count) was empty */
   skippedEmpty: z.number().int(),
+  /** how thousands separators or decimal marks in a count column were read (see readCountColumn) */
+  countDecisions: z.array(z.string()).optional(),
 });
 export type CategoryCounts = z.infer<typeof categoryCountsSchema>;
 

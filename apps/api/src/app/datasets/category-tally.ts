@@ -1,5 +1,5 @@
 import type { CategoryCounts, CountSelection } from '@tallyfit/contracts';
-import { DATASET_MAX_CATEGORIES } from '@tallyfit/contracts';
+import { DATASET_MAX_CATEGORIES, readCount, readCountColumn } from '@tallyfit/contracts';
 import { DatasetFormatError } from './dataset-format-error';
 
 /** Accumulates category counts row by row (raw rows are counted by bytes in row-counter.ts). */
@@ -8,11 +8,10 @@ export interface CategoryTally {
   finish(): CategoryCounts;
 }
 
-/** A whole number ≥ 0 written plainly ("12", "12.0"), as a count column holds. */
+/** A count written as people write it ("12", "1,234", "1 234"; `readCount` in contracts holds the rule), or undefined. */
 export function parseCount(text: string): number | undefined {
-  if (!/^\d+(\.0*)?$/.test(text)) return undefined;
-  const value = Number(text);
-  return Number.isSafeInteger(value) ? value : undefined;
+  const reading = readCount(text);
+  return reading.ok ? reading.value : undefined;
 }
 
 /** Where the named column is in the header; an error naming the columns when it is not there. */
@@ -31,7 +30,8 @@ export function countsTableTally(header: string[], selection: Extract<CountSelec
   if (labelIndex === countIndex) throw new DatasetFormatError('line 1', 'the label column and the count column must be different columns');
   const firstSeen = new Map<string, string>();
   const labels: string[] = [];
-  const counts: number[] = [];
+  const texts: string[] = [];
+  const places: string[] = [];
   let skippedEmpty = 0;
   return {
     add(cells, where) {
@@ -43,11 +43,6 @@ export function countsTableTally(header: string[], selection: Extract<CountSelec
       }
       if (label === '') throw new DatasetFormatError(where(), `the label in column "${selection.labelColumn}" is empty`);
       if (text === '') throw new DatasetFormatError(where(), `the count for "${label}" in column "${selection.countColumn}" is empty`);
-      const count = parseCount(text);
-      if (count === undefined) {
-        const problem = /^-\s*\d/.test(text) ? 'is negative' : /^\d*\.\d+$/.test(text) ? 'is not a whole number' : 'is not a number';
-        throw new DatasetFormatError(where(), `the count "${text}" for "${label}" in column "${selection.countColumn}" ${problem}; counts are whole numbers of 0 or more`);
-      }
       const earlier = firstSeen.get(label);
       if (earlier !== undefined) {
         throw new DatasetFormatError(where(), `the label "${label}" appears a second time (first on ${earlier}); each category needs one row`);
@@ -57,10 +52,29 @@ export function countsTableTally(header: string[], selection: Extract<CountSelec
       }
       firstSeen.set(label, where());
       labels.push(label);
-      counts.push(count);
+      texts.push(text);
+      places.push(where());
     },
     finish() {
-      return { selection, labels, counts, total: counts.reduce((a, b) => a + b, 0), skippedEmpty };
+      // The column is read as a whole, so "1,000" is settled by "1,020" further down.
+      const reading = readCountColumn(texts);
+      const [problem] = reading.problems;
+      if (problem) {
+        const { index, message } = problem;
+        throw new DatasetFormatError(
+          places[index],
+          `the count "${texts[index]}" for "${labels[index]}" in column "${selection.countColumn}" ${message}; counts are whole numbers of 0 or more`,
+        );
+      }
+      const counts = reading.values as number[];
+      return {
+        selection,
+        labels,
+        counts,
+        total: counts.reduce((a, b) => a + b, 0),
+        skippedEmpty,
+        ...(reading.decisions.length ? { countDecisions: reading.decisions } : {}),
+      };
     },
   };
 }

@@ -1,4 +1,4 @@
-import { parseCount } from './category-tally';
+import { readCount } from '@tallyfit/contracts';
 
 /** What a text table's bytes are written in (the sniffer decides). */
 export type TextEncoding = 'utf8' | 'latin1';
@@ -26,8 +26,9 @@ export function isBlankCell(bytes: Uint8Array, start: number, end: number, encod
 }
 
 /**
- * The cell holds a count (`parseCount`'s rule). Plain digits are recognised by bytes; anything
- * else is decoded and given to `parseCount`, so the rule stays written once.
+ * The cell holds a count by `readCount`'s rule (an ambiguous "1,000" is a whole number either way).
+ * Plain digits are recognised by bytes; anything else is decoded and given to `readCount`, so the
+ * rule stays written once.
  */
 export function isCountCell(bytes: Uint8Array, start: number, end: number, encoding: TextEncoding): boolean {
   const length = end - start;
@@ -42,5 +43,6 @@ export function isCountCell(bytes: Uint8Array, start: number, end: number, encod
     }
     if (digits) return true;
   }
-  return parseCount(cellText(bytes, start, end, encoding)) !== undefined;
+  const reading = readCount(cellText(bytes, start, end, encoding));
+  return reading.ok || reading.problem === 'ambiguous';
 }

@@ -241,6 +241,7 @@ export function scanDelimitedRange(path: string, options: ScanRangeOptions, sink
         filled = chunks.filled;
         atEof = chunks.atEof;
         rowStart = 0;
+        nextQuote = -1;
         continue;
       }
       if (!complete) break;
