@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { analysisSpecSchema, testNames, type AnalysisResult } from '@tallyfit/engine';
+import { analysisSpecSchema, testNames, type AnalysisResult, type SegmentsResult } from '@tallyfit/engine';
 import { booleanQueryText, dateQueryText, pageQueryFields } from './pagination';
 import { personRefSchema } from './people-ref';
 
@@ -44,6 +44,8 @@ const analysisCommonShape = {
   seriesId: z.number().int(),
   previousId: z.number().int().nullable(),
   isLatest: z.boolean(),
+  /** the dataset column the analysis was also split by, when it has segments */
+  segmentColumn: z.string().nullable(),
   createdAt: z.string(),
   updatedAt: z.string(),
 };
@@ -53,10 +55,12 @@ export const analysisRecordSchema = z.object({
   ...analysisCommonShape,
   spec: analysisSpecSchema,
   result: z.record(z.string(), z.unknown()).describe("the engine's result (see the engine's AnalysisResult)"),
+  segments: z.record(z.string(), z.unknown()).nullable().describe("each segment's test, ranked, with adjusted p-values (the engine's SegmentsResult), or null"),
 });
-export type AnalysisRecord = Omit<z.infer<typeof analysisRecordSchema>, 'result' | 'spec'> & {
+export type AnalysisRecord = Omit<z.infer<typeof analysisRecordSchema>, 'result' | 'spec' | 'segments'> & {
   spec: CreateAnalysisRequest['spec'];
   result: AnalysisResult;
+  segments: SegmentsResult | null;
 };
 
 /** One row of a list of analyses: enough to browse without loading every result. */

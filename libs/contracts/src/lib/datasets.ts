@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { analysisSpecBaseSchema } from '@tallyfit/engine';
+import { analysisSpecBaseSchema, segmentAdjustMethods } from '@tallyfit/engine';
 
 const columnName = (what: string) =>
   z.string().trim().min(1, { message: `${what} must name a column` }).max(200, { message: `${what} is too long` });
@@ -101,5 +101,9 @@ export const datasetAnalysisRequestSchema = z.object({
   notes: z.string().max(10_000, { message: 'notes must be at most 10000 characters' }).optional(),
   selection: countSelectionSchema,
   spec: analysisSpecBaseSchema.omit({ observed: true }),
+  /** also test each segment of this column (raw rows only), with the family of p-values adjusted */
+  segmentColumn: columnName('segmentColumn').optional(),
+  /** how the segment family is adjusted (default holm) */
+  segmentAdjust: z.enum(segmentAdjustMethods, { message: `segmentAdjust must be one of ${segmentAdjustMethods.join(', ')}` }).optional(),
 });
 export type DatasetAnalysisRequest = z.infer<typeof datasetAnalysisRequestSchema>;

@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { ENGINE_VERSION, type AnalysisResult, type AnalysisSpec } from '@tallyfit/engine';
+import { ENGINE_VERSION, type AnalysisResult, type AnalysisSpec, type SegmentsInput, type SegmentsResult } from '@tallyfit/engine';
 import type {
   AnalysisRecord,
   AnalysisStatus,
@@ -42,6 +42,8 @@ export interface AnalysisRow {
   version: number;
   previous_id: number | null;
   is_latest: number | boolean;
+  segment_column: string | null;
+  segments_json?: string | null;
   created_at: string | Date;
   updated_at: string | Date | null;
 }
@@ -53,6 +55,8 @@ export interface NewAnalysis {
   studyId?: number;
   notes?: string;
   datasetId?: number;
+  /** a dataset-based analysis split by a second column: the column and the engine's segments input */
+  segments?: { column: string; input: SegmentsInput };
 }
 
 /** Test names as the spec spells them, stored comma-wrapped so one LIKE finds one test. */
@@ -87,7 +91,7 @@ const SUMMARY_COLUMNS = [
   'analyses.id', 'analyses.title', 'analyses.notes', 'analyses.author_id', 'analyses.study_id', 'analyses.dataset_id',
   'analyses.status', 'analyses.hypothesis_kind', 'analyses.n', 'analyses.k', 'analyses.p', 'analyses.alpha',
   'analyses.significant', 'analyses.tests_run', 'analyses.engine_version', 'analyses.series_id', 'analyses.version',
-  'analyses.previous_id', 'analyses.is_latest', 'analyses.created_at', 'analyses.updated_at',
+  'analyses.previous_id', 'analyses.is_latest', 'analyses.segment_column', 'analyses.created_at', 'analyses.updated_at',
   'users.name as author_name', 'studies.name as study_name',
 ];
 
@@ -105,6 +109,7 @@ function commonFields(row: AnalysisRow) {
     seriesId: row.series_id ?? row.id,
     previousId: row.previous_id,
     isLatest: Boolean(row.is_latest),
+    segmentColumn: row.segment_column ?? null,
     createdAt: isoDate(row.created_at),
     updatedAt: isoDate(row.updated_at ?? row.created_at),
   };
@@ -125,6 +130,27 @@ const toRecord = (row: AnalysisRow): AnalysisRecord => ({
   ...commonFields(row),
   spec: JSON.parse(row.spec_json),
   result: JSON.parse(row.result_json),
+  segments: row.segments_json ? (JSON.parse(row.segments_json) as StoredSegments).result : null,
+});
+
+/** What segments_json holds: the engine's input (so a re-run can test the same segments again) and its result. */
+interface StoredSegments {
+  column: string;
+  input: SegmentsInput;
+  result: SegmentsResult;
+}
+
+/** The segments of a new run: the stored column and counts tested against the run's spec. */
+async function runSegments(engine: EngineRunner, spec: AnalysisSpec, segments: { column: string; input: SegmentsInput } | undefined) {
+  if (!segments) return null;
+  const { observed: _observed, ...shared } = spec;
+  const input = { ...segments.input, spec: shared };
+  return { column: segments.column, input, result: await engine.analyzeSegments(input) } satisfies StoredSegments;
+}
+
+const segmentColumns = (segments: StoredSegments | null) => ({
+  segment_column: segments?.column ?? null,
+  segments_json: segments ? JSON.stringify(segments) : null,
 });
 
 /** Any stored analysis by id, without an access check (for services that already checked). */
@@ -152,6 +178,7 @@ export async function getReadableAnalysis(db: Knex, caller: User, id: number): P
 export async function createAnalysis(db: Knex, engine: EngineRunner, author: User, input: NewAnalysis): Promise<AnalysisRecord> {
   if (input.studyId !== undefined) await requireStudyContributor(db, author, input.studyId);
   const result = await engine.analyze(input.spec);
+  const segments = await runSegments(engine, input.spec, input.segments);
   const id = await db.transaction(async (trx) => {
     const [row] = await trx('analyses')
       .insert({
@@ -164,6 +191,7 @@ export async function createAnalysis(db: Knex, engine: EngineRunner, author: Use
         version: 1,
         is_latest: true,
         ...resultColumns(input.spec, result),
+        ...segmentColumns(segments),
         updated_at: now(trx),
       })
       .returning('id');
@@ -176,7 +204,13 @@ export async function createAnalysis(db: Knex, engine: EngineRunner, author: Use
       entityId: newId,
       studyId: input.studyId ?? null,
       summary: `ran analysis "${input.title}"`,
-      after: { title: input.title, studyId: input.studyId ?? null, datasetId: input.datasetId ?? null, p: result.conclusion.p },
+      after: {
+        title: input.title,
+        studyId: input.studyId ?? null,
+        datasetId: input.datasetId ?? null,
+        p: result.conclusion.p,
+        ...(segments ? { segmentColumn: segments.column, segments: segments.result.rows.length, segmentsSignificant: segments.result.significantCount } : {}),
+      },
     });
     return newId;
   });
@@ -298,6 +332,8 @@ export async function rerunAnalysis(
   if (previous.study) await requireStudyContributor(db, caller, previous.study.id);
   const nextSpec = spec ?? previous.spec;
   const result = await engine.analyze(nextSpec);
+  const stored = await db('analyses').where({ id }).first('segments_json');
+  const segments = await runSegments(engine, nextSpec, stored?.segments_json ? (JSON.parse(stored.segments_json) as StoredSegments) : undefined);
   const newId = await db.transaction(async (trx) => {
     // Only one re-run of a version may win: the update claims the version, a racing one finds nothing to claim.
     const claimed = await trx('analyses').where({ id, is_latest: true }).update({ is_latest: false });
@@ -315,6 +351,7 @@ export async function rerunAnalysis(
         previous_id: previous.id,
         is_latest: true,
         ...resultColumns(nextSpec, result),
+        ...segmentColumns(segments),
         updated_at: now(trx),
       })
       .returning('id');

@@ -1,14 +1,18 @@
 import { mkdirSync, renameSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Knex } from 'knex';
-import type { CategoryCounts, CountSelection, DatasetRecord, DatasetSummary, User } from '@tallyfit/contracts';
+import type { AnalysisRecord, CategoryCounts, CountSelection, DatasetAnalysisRequest, DatasetRecord, DatasetSummary, SegmentCounts, User } from '@tallyfit/contracts';
+import { analysisSpecSchema, type SegmentsInput } from '@tallyfit/engine';
+import { createAnalysis } from '../analyses/analyses.service';
+import type { EngineRunner } from '../engine/engine-runner';
+import { parseInput } from '../http/validate';
 import { recordAudit } from '../audit/audit.service';
 import { insertedId, isoDate, now } from '../http/db-time';
 import { forbidden, notFound, unprocessable } from '../http/http-error';
 import { getStudy, requireStudyContributor } from '../studies/studies.service';
 import { memberStudyIds, readsEveryStudy } from '../studies/study-access';
 import { DatasetFormatError } from './dataset-format-error';
-import { countCategories, scanTable } from './dataset-scan';
+import { countCategories, countSegments, scanTable } from './dataset-scan';
 import { sha256OfFile } from './file-checksum';
 import type { FileKind } from './file-kind';
 
@@ -210,6 +214,54 @@ async function countsOf(dataDir: string, row: DatasetRow, selection: CountSelect
   } catch (error) {
     throw asUnprocessable(error);
   }
+}
+
+/** The counts of a raw selection split by a segment column, read from the stored file in one pass. */
+async function segmentCountsOf(dataDir: string, row: DatasetRow, selection: Extract<CountSelection, { shape: 'raw' }>, segmentColumn: string): Promise<SegmentCounts> {
+  if (!row.stored_file) throw notFound(`the file of dataset ${row.id} is no longer stored`);
+  try {
+    return await countSegments(join(dataDir, row.stored_file), row.kind, selection, segmentColumn);
+  } catch (error) {
+    throw asUnprocessable(error);
+  }
+}
+
+/**
+ * Runs an analysis on a dataset's counts: the selection fills the spec's observed counts and, with
+ * a segment column, every segment's counts are tested against the same spec (one pass over the
+ * file for the split), all stored as one analysis.
+ */
+export async function createDatasetAnalysis(
+  db: Knex,
+  engine: EngineRunner,
+  dataDir: string,
+  caller: User,
+  id: number,
+  body: DatasetAnalysisRequest,
+): Promise<AnalysisRecord> {
+  if (body.segmentColumn !== undefined && body.selection.shape !== 'raw') {
+    throw unprocessable('segments need raw rows (one row per observation); a table of counts has no second column to split by', [
+      { path: 'segmentColumn', message: 'only with a selection of shape "raw"' },
+    ]);
+  }
+  const { dataset, counts } = await countsForSelection(db, dataDir, caller, id, body.selection);
+  const spec = parseInput(analysisSpecSchema, { ...body.spec, observed: { labels: counts.labels, counts: counts.counts } }, 'analysis');
+  let segments: { column: string; input: SegmentsInput } | undefined;
+  if (body.segmentColumn !== undefined && body.selection.shape === 'raw') {
+    const row = await readableRow(db, caller, id);
+    const split = await segmentCountsOf(dataDir, row, body.selection, body.segmentColumn);
+    segments = {
+      column: body.segmentColumn,
+      input: {
+        spec: body.spec,
+        labels: split.labels,
+        segments: split.segments.map(({ segment, counts: segmentCounts }) => ({ segment, counts: segmentCounts })),
+        adjust: body.segmentAdjust,
+        segmentName: body.segmentColumn,
+      },
+    };
+  }
+  return createAnalysis(db, engine, caller, { title: body.title, notes: body.notes, spec, studyId: dataset.studyId, datasetId: dataset.id, segments });
 }
 
 /**

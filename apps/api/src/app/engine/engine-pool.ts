@@ -1,6 +1,6 @@
 import { availableParallelism } from 'node:os';
 import { Piscina } from 'piscina';
-import type { AnalysisResult, AnalysisSpec } from '@tallyfit/engine';
+import type { AnalysisResult, AnalysisSpec, SegmentsInput, SegmentsResult } from '@tallyfit/engine';
 import { HttpError } from '../http/http-error';
 import { unwrapOutcome, type EngineRunner, type EngineTaskOutcome } from './engine-runner';
 
@@ -30,25 +30,28 @@ export function createEnginePool(options: EnginePoolOptions): EngineRunner {
     idleTimeout: 30_000,
     maxQueue: options.maxQueue ?? maxThreads * 64,
   });
-  return {
-    analyze: async (spec: AnalysisSpec): Promise<AnalysisResult> => {
-      const signal = AbortSignal.timeout(options.timeLimitMs);
-      try {
-        return unwrapOutcome((await pool.run(spec, { signal })) as EngineTaskOutcome);
-      } catch (error) {
-        if (signal.aborted) {
-          throw new HttpError(
-            422,
-            'too_much_work',
-            `the analysis did not finish within ${options.timeLimitMs / 1000} s; ask the exact test for Monte Carlo (exact.method "monte-carlo") or fewer samples`,
-          );
-        }
-        if (error instanceof Error && /queue is full/i.test(error.message)) {
-          throw new HttpError(503, 'busy', 'the engine is busy; try again in a moment');
-        }
-        throw error;
+  /** Runs one task (`name`: the worker's exported function) within the time limit. */
+  async function run<T>(input: unknown, name: string): Promise<T> {
+    const signal = AbortSignal.timeout(options.timeLimitMs);
+    try {
+      return unwrapOutcome((await pool.run(input, { signal, name })) as EngineTaskOutcome<T>);
+    } catch (error) {
+      if (signal.aborted) {
+        throw new HttpError(
+          422,
+          'too_much_work',
+          `the analysis did not finish within ${options.timeLimitMs / 1000} s; ask the exact test for Monte Carlo (exact.method "monte-carlo") or fewer samples`,
+        );
       }
-    },
+      if (error instanceof Error && /queue is full/i.test(error.message)) {
+        throw new HttpError(503, 'busy', 'the engine is busy; try again in a moment');
+      }
+      throw error;
+    }
+  }
+  return {
+    analyze: (spec: AnalysisSpec) => run<AnalysisResult>(spec, 'analyzeSpec'),
+    analyzeSegments: (input: SegmentsInput) => run<SegmentsResult>(input, 'analyzeSegmentsTask'),
     close: () => pool.destroy(),
   };
 }

@@ -1,4 +1,4 @@
-import type { AnalysisResult } from '@tallyfit/engine';
+import type { AnalysisResult, SegmentsResult } from '@tallyfit/engine';
 
 /** Everything a report says about one stored analysis. */
 export interface ReportSource {
@@ -12,6 +12,8 @@ export interface ReportSource {
   engineVersion: string;
   notes: string | null;
   result: AnalysisResult;
+  /** the same test in each segment of a second column, when the analysis was split */
+  segments?: { column: string; result: SegmentsResult } | null;
 }
 
 const testNames: Record<string, string> = {
