@@ -30,6 +30,11 @@ describe('datasetAnalysisRequest', () => {
     });
     expect(datasetAnalysisRequest('Typed', typed, { kind: 'equal' }, {})).toBeNull();
   });
+
+  it('adds the segment column and the adjustment when a split was chosen', () => {
+    const split = { ...uploaded, segments: { column: 'line', adjust: 'benjamini-hochberg' as const } };
+    expect(datasetAnalysisRequest('Defects by line', split, { kind: 'equal' }, {})).toMatchObject({ segmentColumn: 'line', segmentAdjust: 'benjamini-hochberg' });
+  });
 });
 
 describe('suggestedTitle', () => {

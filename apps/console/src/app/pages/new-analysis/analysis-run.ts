@@ -28,7 +28,12 @@ export function datasetAnalysisRequest(
   options: AnalysisOptions,
 ): DatasetAnalysisRequest | null {
   if (!data.selection) return null;
-  return { title: title.trim(), selection: data.selection, spec: { hypothesis, ...options } };
+  const request: DatasetAnalysisRequest = { title: title.trim(), selection: data.selection, spec: { hypothesis, ...options } };
+  if (data.segments) {
+    request.segmentColumn = data.segments.column;
+    request.segmentAdjust = data.segments.adjust;
+  }
+  return request;
 }
 
 /** A title to start from, so the person only has to adjust it. */
