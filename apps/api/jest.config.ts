@@ -2,6 +2,8 @@ export default {
   displayName: 'api',
   preset: '../../jest.preset.js',
   testEnvironment: 'node',
+  // Each suite starts an app on a fresh database; a busy 2-core machine needs more than the default 5 s for that.
+  testTimeout: 30_000,
   transform: {
     '^.+\\.ts$': ['ts-jest', { tsconfig: '<rootDir>/tsconfig.spec.json' }],
   },

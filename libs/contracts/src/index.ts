@@ -12,4 +12,5 @@ export * from './lib/audit';
 export * from './lib/reviews';
 export * from './lib/datasets';
 export * from './lib/shares';
+export * from './lib/capabilities';
 export * from './lib/count-text';

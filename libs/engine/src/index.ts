@@ -3,6 +3,8 @@
  *
  * One entry point, `analyze(spec)`, takes a plain JSON spec and returns a plain JSON result; the
  * distribution functions, planning functions and category merging are exported for direct use.
+ * `analyzeSequential` (and its incremental form `startSequential` / `addSequentialBatch`) tests a
+ * stream of batches with an anytime-valid sequential test.
  */
 export { analyze, DEFAULT_ALPHA, DEFAULT_INTERVAL_LEVEL, type AnalyzeOptions } from './lib/analyze';
 export { ENGINE_VERSION } from './lib/engine-version';
@@ -54,6 +56,25 @@ export {
   type ExactTestOptions,
   type ExactTestOutcome,
 } from './lib/exact';
+export {
+  analyzeSequential,
+  startSequential,
+  addSequentialBatch,
+  sequentialSpecSchema,
+  sequentialStartSchema,
+  sequentialStateSchema,
+  DEFAULT_CONCENTRATION,
+  logBayesFactor,
+  logMixtureProbability,
+  shareConfidenceInterval,
+  type SequentialResult,
+  type SequentialState,
+  type SequentialLook,
+  type SequentialShare,
+  type SequentialSpec,
+  type SequentialStartSpec,
+  type ShareInterval,
+} from './lib/sequential';
 export {
   analyzeSegments,
   segmentsInputSchema,

@@ -1,7 +1,17 @@
-/** The README's examples, run against the public entry point so the documentation cannot drift. */
+/**
+ * The README's examples, run against the public entry point so the documentation cannot drift. Every number the
+ * README shows is checked against a value computed outside the engine (fixtures from tools/fixtures/engine-reference.py),
+ * and the engine is checked against the same value.
+ */
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { expectClose } from './testing/expect-close';
+import { readFixture, rowWhere } from './testing/reference-fixtures';
 import {
+  addSequentialBatch,
   analyze,
   analyzeSegments,
+  analyzeSequential,
   chiSquareCriticalValue,
   chiSquareLogSurvival,
   chiSquareQuantile,
@@ -10,8 +20,21 @@ import {
   mergeCategories,
   power,
   sampleSize,
+  startSequential,
   type AnalysisSpec,
 } from './index';
+
+const readme = readFileSync(join(__dirname, '..', 'README.md'), 'utf8');
+
+/** The README shows `shown` (digits cut short with "…", or a whole number) and the reference value begins with those digits. */
+function documented(shown: string, reference: number): void {
+  expect(readme).toContain(shown);
+  const number = /([−-]?[\d.]+)(…?)$/.exec(shown);
+  if (!number) throw new Error(`no number at the end of "${shown}"`);
+  const digits = number[1].replace('−', '-');
+  const agrees = number[2] ? String(reference).startsWith(digits) : reference === Number(digits);
+  if (!agrees) throw new Error(`the README shows "${shown}" but the reference value is ${reference}`);
+}
 
 describe('README examples', () => {
   it('quick start', () => {
@@ -74,22 +97,73 @@ describe('README examples', () => {
       posthoc: { adjust: 'holm' },
       intervals: { method: 'sison-glaz', level: 0.95 },
     });
-    expect(result.effectSize.w).toBeCloseTo(0.295, 3);
+    const reference = rowWhere(readFixture('analyses').cases, { name: 'proportions' });
+    documented('w: 0.295…', reference.w);
+    documented('low: 0.10…', reference.wInterval.low);
+    documented('high: 0.43…', reference.wInterval.high);
+    expectClose(result.effectSize.w, reference.w, { relative: 1e-14 });
     expect(result.effectSize.size).toBe('small');
-    expect(result.effectSize.interval?.low).toBeCloseTo(0.1, 2);
-    expect(result.effectSize.interval?.high).toBeCloseTo(0.43, 2);
-    expect(result.categories[1].expected).toBeCloseTo(62.4, 10);
-    expect(result.categories[1].residual).toBeCloseTo(2.1, 2);
-    expect(result.categories[1].pAdjusted).toBeCloseTo(0.035, 3);
+    expectClose(result.effectSize.interval!.low, reference.wInterval.low, { relative: 1e-9 });
+    expectClose(result.effectSize.interval!.high, reference.wInterval.high, { relative: 1e-9 });
+    const [b, referenceB] = [result.categories[1], reference.categories[1]];
+    documented('expected: 62.4', Number(referenceB.expected.toPrecision(14)));
+    documented('residual: 2.10…', referenceB.residual);
+    documented('pAdjusted: 0.0347…', referenceB.pHolm);
+    expectClose(b.expected, referenceB.expected, { relative: 1e-15 });
+    expectClose(b.residual, referenceB.residual, { relative: 1e-14 });
+    expectClose(b.pAdjusted, referenceB.pHolm, { relative: 1e-13 });
   });
 
   it('planning and distribution functions', () => {
-    expect(power({ w: 0.3, df: 1, n: 100 }).power).toBeCloseTo(0.8508, 4);
-    expect(sampleSize({ w: 0.1, df: 1, power: 0.8 })).toMatchObject({ n: 785 });
-    expect(sampleSize({ w: 0.1, df: 1, power: 0.8 }).nContinuous).toBeCloseTo(784.886, 3);
-    expect(chiSquareSurvival(5.6071, 1)).toBeCloseTo(0.0178878, 7);
-    expect(chiSquareLogSurvival(1500, 1)).toBeCloseTo(-753.883067105382, 9);
-    expect(chiSquareCriticalValue(0.05, 3)).toBeCloseTo(7.8147, 4);
-    expect(chiSquareQuantile(0.5, 10)).toBeCloseTo(9.3418, 4);
+    const planned = rowWhere(readFixture('power').power, { w: 0.3, df: 1, n: 100, alpha: 0.05 });
+    documented('power: 0.8508…', planned.power);
+    documented('criticalValue: 3.8414…', planned.criticalValue);
+    expectClose(power({ w: 0.3, df: 1, n: 100 }).power, planned.power, { relative: 1e-13 });
+    const sized = rowWhere(readFixture('power').sampleSize, { w: 0.1, df: 1, power: 0.8, alpha: 0.05 });
+    documented('n: 785', sized.n);
+    documented('nContinuous: 784.886…', sized.nContinuous);
+    documented('power: 0.8000…', sized.powerAtN);
+    expect(sampleSize({ w: 0.1, df: 1, power: 0.8 })).toMatchObject({ n: sized.n });
+    expectClose(sampleSize({ w: 0.1, df: 1, power: 0.8 }).nContinuous, sized.nContinuous, { relative: 1e-12 });
+
+    const chiSquare = readFixture('chi-square');
+    const survival = rowWhere(chiSquare.tails, { x: 5.6071, df: 1 });
+    documented('5.6071, 1); // 0.0178878…', survival.upper);
+    expectClose(chiSquareSurvival(5.6071, 1), survival.upper, { relative: 1e-13 });
+    const farTail = rowWhere(chiSquare.tails, { x: 1500, df: 1 });
+    documented('// −753.883067105382…', farTail.logUpper);
+    expectClose(chiSquareLogSurvival(1500, 1), farTail.logUpper, { relative: 4 * Number.EPSILON });
+    const critical = rowWhere(chiSquare.quantiles, { df: 3, alpha: 0.05 });
+    documented('// 7.8147…', critical.criticalValue);
+    expectClose(chiSquareCriticalValue(0.05, 3), critical.criticalValue, { relative: 1e-14 });
+    const median = rowWhere(chiSquare.quantiles, { df: 10, alpha: 0.5 });
+    documented('// 9.3418…', median.lowerQuantile!);
+    expectClose(chiSquareQuantile(0.5, 10), median.lowerQuantile!, { relative: 1e-14 });
+  });
+
+  it('sequential tests for streams of batches', () => {
+    const result = analyzeSequential({
+      observed: { labels: ['control', 'variant'] },
+      hypothesis: { kind: 'equal' },
+      batches: [[5030, 4970], [5120, 4880], [5150, 4850], [5100, 4900]],
+    });
+    const p = result.looks.map((look) => look.p);
+    expect(p.slice(0, 2)).toEqual([1, 1]);
+    expect(p[2]).toBeCloseTo(0.04395, 5);
+    expect(p[3]).toBeCloseTo(0.006865, 6);
+    expect(result.firstAlarm).toBe(3);
+    expect(result.looks[2].n).toBe(30000);
+    const control = result.looks[3].shares[0];
+    expect(control).toMatchObject({ label: 'control', expected: 0.5, estimate: 0.51 });
+    expect(control.lower).toBeCloseTo(0.5013, 4);
+    expect(control.upper).toBeCloseTo(0.5187, 4);
+
+    const state = startSequential({ observed: { labels: ['day', 'evening', 'night'] }, hypothesis: { kind: 'ratio', values: [2, 2, 1] }, alpha: 0.01 });
+    expect(state).toEqual({ labels: ['day', 'evening', 'night'], expectedShares: [0.4, 0.4, 0.2], alpha: 0.01, concentration: 100, counts: [0, 0, 0], batches: 0, p: 1 });
+    const { state: next, look } = addSequentialBatch(state, [410, 395, 195]);
+    expect(next.counts).toEqual([410, 395, 195]);
+    expect(look.shares[2]).toMatchObject({ label: 'night', expected: 0.2, estimate: 0.195 });
+    expect(look.shares[2].lower).toBeCloseTo(0.1547, 4);
+    expect(look.shares[2].upper).toBeCloseTo(0.24, 4);
   });
 });

@@ -16,7 +16,7 @@ import { join } from 'node:path';
 import pino from 'pino';
 import { analyze, type AnalysisSpec } from '@tallyfit/engine';
 import { signAccessToken } from '../../../apps/api/src/app/auth/access-token';
-import { createUser } from '../../../apps/api/src/app/auth/users.service';
+import { createUser } from '../../../apps/api/src/app/identity/users.service';
 import { loadConfig } from '../../../apps/api/src/app/config';
 import { createApp } from '../../../apps/api/src/app/create-app';
 import { migrateToLatest, openDatabase } from '../../../apps/api/src/app/database';

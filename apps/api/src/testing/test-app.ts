@@ -8,7 +8,7 @@ import type { Role } from '@tallyfit/contracts';
 import { loadConfig, type Config } from '../app/config';
 import { createApp, type TallyfitApp } from '../app/create-app';
 import { migrateToLatest, openDatabase } from '../app/database';
-import { createUser } from '../app/auth/users.service';
+import { createUser } from '../app/identity/users.service';
 import { inProcessEngine, type EngineRunner } from '../app/engine/engine-runner';
 import { createTestDatabaseUrl } from './test-database';
 import { startMailService, type MailService } from '../app/mail/mail-service';

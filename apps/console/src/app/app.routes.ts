@@ -1,5 +1,5 @@
 import type { Routes } from '@angular/router';
-import { roleGuard } from './core/auth/role.guard';
+import { capabilityGuard } from './core/auth/capability.guard';
 import { signedInGuard } from './core/auth/signed-in.guard';
 
 export const appRoutes: Routes = [
@@ -35,8 +35,8 @@ export const appRoutes: Routes = [
         loadComponent: () => import('./pages/tokens/tokens-page').then((m) => m.TokensPage),
       },
       {
+        // Each page of the admin area has its own guard.
         path: 'admin',
-        canMatch: [roleGuard('admin', 'lead')],
         loadChildren: () => import('./pages/admin/admin.routes').then((m) => m.adminRoutes),
       },
       {
@@ -47,13 +47,13 @@ export const appRoutes: Routes = [
       {
         path: 'analyses/new',
         title: 'New analysis · Tallyfit',
-        canMatch: [roleGuard('admin', 'analyst')],
+        canMatch: [capabilityGuard('analyses.run')],
         loadComponent: () => import('./pages/new-analysis/new-analysis-page').then((m) => m.NewAnalysisPage),
       },
       {
         path: 'planner',
         title: 'Planner · Tallyfit',
-        canMatch: [roleGuard('admin', 'lead', 'analyst')],
+        canMatch: [capabilityGuard('engine.compute')],
         loadComponent: () => import('./pages/planner/planner-page').then((m) => m.PlannerPage),
       },
       {

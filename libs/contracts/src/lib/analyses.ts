@@ -1,6 +1,15 @@
 import { z } from 'zod';
-import { analysisSpecSchema, testNames, type AnalysisResult, type SegmentsResult } from '@tallyfit/engine';
-import { booleanQueryText, dateQueryText, pageQueryFields } from './pagination';
+import {
+  analysisSpecBaseSchema,
+  analysisSpecSchema,
+  segmentAdjustMethods,
+  testNames,
+  type AnalysisResult,
+  type AnalysisSpec,
+  type SegmentsResult,
+} from '@tallyfit/engine';
+import { countSelectionSchema } from './datasets';
+import { booleanQueryText, dateQueryText, idText, pageQueryFields } from './pagination';
 import { personRefSchema } from './people-ref';
 
 /** Where an analysis is in review: draft → in review → signed off | returned (a returned one can be resubmitted). */
@@ -11,14 +20,41 @@ export type AnalysisStatus = z.infer<typeof analysisStatusSchema>;
 const title = z.string().trim().min(1, { message: 'title must not be empty' }).max(200, { message: 'title must be at most 200 characters' });
 const notes = z.string().max(10_000, { message: 'notes must be at most 10000 characters' });
 
-export const createAnalysisRequestSchema = z.object({
+const positiveId = (name: string) => z.number().int().positive({ message: `${name} must be a positive whole number` });
+
+/** An analysis of counts sent with the request. */
+export const countsAnalysisRequestSchema = z.strictObject({
   title,
+  notes: notes.optional(),
   spec: analysisSpecSchema,
   /** The study the analysis belongs to; without it the analysis is the author's own. */
-  studyId: z.number().int().positive({ message: 'studyId must be a positive whole number' }).optional(),
-  notes: notes.optional(),
+  studyId: positiveId('studyId').optional(),
 });
+export type CountsAnalysisRequest = z.infer<typeof countsAnalysisRequestSchema>;
+
+/**
+ * An analysis of a stored dataset's counts: the selection says which column(s) hold them, `spec`
+ * is the engine's spec without `observed` (the dataset's counts fill it in); the analysis belongs
+ * to the dataset's study.
+ */
+export const datasetAnalysisRequestSchema = z.strictObject({
+  title,
+  notes: notes.optional(),
+  datasetId: positiveId('datasetId'),
+  selection: countSelectionSchema,
+  spec: analysisSpecBaseSchema.omit({ observed: true }),
+  /** also test each segment of this column (raw rows only), with the family of p-values adjusted */
+  segmentColumn: z.string().trim().min(1, { message: 'segmentColumn must name a column' }).max(200, { message: 'segmentColumn is too long' }).optional(),
+  /** how the segment family is adjusted (default holm) */
+  segmentAdjust: z.enum(segmentAdjustMethods, { message: `segmentAdjust must be one of ${segmentAdjustMethods.join(', ')}` }).optional(),
+});
+export type DatasetAnalysisRequest = z.infer<typeof datasetAnalysisRequestSchema>;
+
+/** One way to create an analysis: from counts, or from a dataset. */
+export const createAnalysisRequestSchema = z.union([countsAnalysisRequestSchema, datasetAnalysisRequestSchema]);
 export type CreateAnalysisRequest = z.infer<typeof createAnalysisRequestSchema>;
+
+export const isDatasetAnalysisRequest = (request: CreateAnalysisRequest): request is DatasetAnalysisRequest => 'datasetId' in request;
 
 export const updateAnalysisRequestSchema = z
   .object({ title: title.optional(), notes: notes.nullable().optional() })
@@ -58,7 +94,7 @@ export const analysisRecordSchema = z.object({
   segments: z.record(z.string(), z.unknown()).nullable().describe("each segment's test, ranked, with adjusted p-values (the engine's SegmentsResult), or null"),
 });
 export type AnalysisRecord = Omit<z.infer<typeof analysisRecordSchema>, 'result' | 'spec' | 'segments'> & {
-  spec: CreateAnalysisRequest['spec'];
+  spec: AnalysisSpec;
   result: AnalysisResult;
   segments: SegmentsResult | null;
 };
@@ -83,7 +119,7 @@ export const listAnalysesQuerySchema = z.object({
   ...pageQueryFields(25),
   sort: z.enum(HISTORY_SORTS, { message: `sort must be one of ${HISTORY_SORTS.join(', ')}` }).default('date'),
   order: z.enum(['asc', 'desc'], { message: 'order must be asc or desc' }).default('desc'),
-  studyId: z.coerce.number().int().positive({ message: 'studyId must be a positive whole number' }).optional(),
+  studyId: idText('studyId').optional(),
   /** `me` for the caller's own analyses, or a person's id. */
   author: z
     .string()

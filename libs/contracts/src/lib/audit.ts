@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { dateQueryText, pageQueryFields } from './pagination';
+import { dateQueryText, idText, pageQueryFields } from './pagination';
 
 /** What kind of change an audit event records. */
 export const AUDIT_ACTIONS = [
@@ -33,11 +33,11 @@ export type AuditEvent = z.infer<typeof auditEventSchema>;
 
 export const listAuditQuerySchema = z.object({
   ...pageQueryFields(50),
-  actorId: z.coerce.number().int().positive({ message: 'actorId must be a positive whole number' }).optional(),
+  actorId: idText('actorId').optional(),
   action: auditActionSchema.optional(),
   entityType: z.string().max(32).optional(),
   entityId: z.string().max(64).optional(),
-  studyId: z.coerce.number().int().positive({ message: 'studyId must be a positive whole number' }).optional(),
+  studyId: idText('studyId').optional(),
   from: dateQueryText('from').optional(),
   to: dateQueryText('to').optional(),
 });

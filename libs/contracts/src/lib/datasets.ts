@@ -1,5 +1,4 @@
 import { z } from 'zod';
-import { analysisSpecBaseSchema, segmentAdjustMethods } from '@tallyfit/engine';
 
 const columnName = (what: string) =>
   z.string().trim().min(1, { message: `${what} must name a column` }).max(200, { message: `${what} is too long` });
@@ -82,28 +81,26 @@ export type DatasetRecord = z.infer<typeof datasetRecordSchema>;
 
 /**
  * Optional multipart fields sent beside the file: choosing the shape and column(s) at upload
- * checks them while the file streams, and a file that does not fit is refused whole.
+ * checks them while the file streams, and a file that does not fit is refused whole. Without a
+ * shape the file is only stored and profiled (the answer is no selection).
  */
-export const datasetUploadFieldsSchema = z.union([countSelectionSchema, z.object({ shape: z.undefined().optional() })]);
+export const datasetUploadFieldsSchema = z
+  .strictObject({
+    shape: z.enum(['raw', 'counts'], { error: 'shape must be raw or counts' }).optional(),
+    column: z.string().optional(),
+    labelColumn: z.string().optional(),
+    countColumn: z.string().optional(),
+  })
+  .transform((fields, context): CountSelection | undefined => {
+    if (fields.shape === undefined) return undefined;
+    const selection = countSelectionSchema.safeParse(fields);
+    if (selection.success) return selection.data;
+    for (const issue of selection.error.issues) context.addIssue({ code: 'custom', path: issue.path, message: issue.message });
+    return z.NEVER;
+  });
 
 /** Limits the upload and its summaries keep to (the API states them; the console shows them). */
 export const DATASET_PREVIEW_ROWS = 20;
 export const DATASET_MAX_CATEGORIES = 1000;
 /** Each segment is a test of its own; a family larger than this is no longer read segment by segment. */
 export const DATASET_MAX_SEGMENTS = 200;
-
-/**
- * An analysis of a dataset's counts: the selection says which column(s) hold them, `spec` is the
- * engine's spec without `observed` (the stored counts fill it in).
- */
-export const datasetAnalysisRequestSchema = z.object({
-  title: z.string().trim().min(1, { message: 'title must not be empty' }).max(200, { message: 'title must be at most 200 characters' }),
-  notes: z.string().max(10_000, { message: 'notes must be at most 10000 characters' }).optional(),
-  selection: countSelectionSchema,
-  spec: analysisSpecBaseSchema.omit({ observed: true }),
-  /** also test each segment of this column (raw rows only), with the family of p-values adjusted */
-  segmentColumn: columnName('segmentColumn').optional(),
-  /** how the segment family is adjusted (default holm) */
-  segmentAdjust: z.enum(segmentAdjustMethods, { message: `segmentAdjust must be one of ${segmentAdjustMethods.join(', ')}` }).optional(),
-});
-export type DatasetAnalysisRequest = z.infer<typeof datasetAnalysisRequestSchema>;

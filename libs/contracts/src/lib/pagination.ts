@@ -14,9 +14,6 @@ export const pageQueryFields = (defaultPageSize = 25) => ({
     .default(defaultPageSize),
 });
 
-export const pageQuerySchema = z.object(pageQueryFields());
-export type PageQuery = z.infer<typeof pageQuerySchema>;
-
 /** One page of a list, with the total number of matching items. */
 export const pageSchema = <Item extends z.ZodType>(item: Item) =>
   z.object({ items: z.array(item), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() });
@@ -27,9 +24,17 @@ export interface Page<Item> {
   pageSize: number;
 }
 
-export const idParamsSchema = z.object({
-  id: z.coerce.number().int().positive({ message: 'id must be a positive whole number' }),
-});
+/**
+ * A record id written in a path or query string: decimal digits only, so `0x1`, ` 1` or `1e0`
+ * never resolve to record 1 (a plain number coercion would accept all three).
+ */
+export const idText = (name: string) =>
+  z
+    .string()
+    .regex(/^[1-9][0-9]{0,15}$/, { message: `${name} must be a positive whole number` })
+    .transform(Number);
+
+export const idParamsSchema = z.object({ id: idText('id') });
 
 /** A query-string flag written `true` or `false`. */
 export const booleanQueryText = (name: string) =>

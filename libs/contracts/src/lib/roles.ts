@@ -1,6 +1,6 @@
 import { z } from 'zod';
 
-/** The four roles of DESIGN.md ("Users and roles"), from most to least powerful. */
+/** The four roles, from most to least powerful; what each may do is in `capabilities.ts`. */
 export const ROLES = ['admin', 'lead', 'analyst', 'viewer'] as const;
 
 export const roleSchema = z.enum(ROLES);

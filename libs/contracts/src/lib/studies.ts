@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { idText } from './pagination';
 import { roleSchema } from './roles';
 
 /**
@@ -73,6 +74,6 @@ export const updateStudyMemberRequestSchema = z.object({ studyRole: studyRoleSch
 export type UpdateStudyMemberRequest = z.infer<typeof updateStudyMemberRequestSchema>;
 
 export const studyMemberParamsSchema = z.object({
-  id: z.coerce.number().int().positive({ message: 'id must be a positive whole number' }),
-  userId: z.coerce.number().int().positive({ message: 'userId must be a positive whole number' }),
+  id: idText('id'),
+  userId: idText('userId'),
 });

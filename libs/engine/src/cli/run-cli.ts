@@ -4,7 +4,16 @@
  * exit code back (0 success, 2 bad arguments or input, 1 unexpected failure).
  */
 // Only the public entry point: the published cli.js imports it from index.js, sharing one copy.
-import { analyze, chiSquareCriticalValue, chiSquareTails, ENGINE_VERSION, EngineInputError, power, sampleSize } from '../index';
+import {
+  analyze,
+  analyzeSequential,
+  chiSquareCriticalValue,
+  chiSquareTails,
+  ENGINE_VERSION,
+  EngineInputError,
+  power,
+  sampleSize,
+} from '../index';
 import { CliUsageError, parseNumericFlags, requireFlag } from './parse-flags';
 
 export interface CliIo {
@@ -18,6 +27,8 @@ export const USAGE = `tallyfit ${ENGINE_VERSION} — goodness-of-fit tests for c
 
 Usage:
   tallyfit analyze FILE|-                        run the analysis spec in FILE (or stdin) and print the result JSON
+  tallyfit sequential FILE|-                     anytime-valid sequential test of the batches in FILE (or stdin):
+                                                 { looks: [{ batch, n, p, alarm, … }], firstAlarm, … }
   tallyfit power --w W --df D --n N [--alpha A]  power of a chi-square test: { power, criticalValue, ncp }
   tallyfit sample-size --w W --df D --power P [--alpha A]
                                                  smallest n reaching the power: { n, nContinuous, power }
@@ -30,8 +41,9 @@ function print(io: CliIo, value: unknown): void {
   io.writeOut(`${JSON.stringify(value, null, 2)}\n`);
 }
 
-async function runAnalyze(args: readonly string[], io: CliIo): Promise<void> {
-  if (args.length !== 1) throw new CliUsageError('analyze needs exactly one argument: a spec file, or - for standard input');
+/** Read the one JSON argument of `command`: a file path, or - for standard input. */
+async function readJsonArgument(command: string, args: readonly string[], io: CliIo): Promise<unknown> {
+  if (args.length !== 1) throw new CliUsageError(`${command} needs exactly one argument: a spec file, or - for standard input`);
   const source = args[0];
   let text: string;
   try {
@@ -39,13 +51,21 @@ async function runAnalyze(args: readonly string[], io: CliIo): Promise<void> {
   } catch (error) {
     throw new CliUsageError(`cannot read ${source}: ${(error as Error).message}`);
   }
-  let spec: unknown;
   try {
-    spec = JSON.parse(text);
+    return JSON.parse(text);
   } catch (error) {
     throw new CliUsageError(`${source === '-' ? 'standard input' : source} is not valid JSON: ${(error as Error).message}`);
   }
+}
+
+async function runAnalyze(args: readonly string[], io: CliIo): Promise<void> {
+  const spec = await readJsonArgument('analyze', args, io);
   print(io, analyze(spec as Parameters<typeof analyze>[0]));
+}
+
+async function runSequential(args: readonly string[], io: CliIo): Promise<void> {
+  const spec = await readJsonArgument('sequential', args, io);
+  print(io, analyzeSequential(spec as Parameters<typeof analyzeSequential>[0]));
 }
 
 function runPower(args: readonly string[], io: CliIo): void {
@@ -86,6 +106,9 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
       case 'analyze':
         await runAnalyze(rest, io);
         return 0;
+      case 'sequential':
+        await runSequential(rest, io);
+        return 0;
       case 'power':
         runPower(rest, io);
         return 0;
@@ -106,7 +129,7 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
       case undefined:
         throw new CliUsageError('no command given (try tallyfit --help)');
       default:
-        throw new CliUsageError(`unknown command "${command}" (expected analyze, power, sample-size or chisq)`);
+        throw new CliUsageError(`unknown command "${command}" (expected analyze, sequential, power, sample-size or chisq)`);
     }
   } catch (error) {
     if (error instanceof CliUsageError) {

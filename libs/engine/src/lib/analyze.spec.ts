@@ -1,9 +1,9 @@
 import fc from 'fast-check';
 import { expectClose } from '../testing/expect-close';
+import { readFixture, rowWhere } from '../testing/reference-fixtures';
 import { analyze } from './analyze';
 import { ENGINE_VERSION } from './engine-version';
 import { mergeCategories } from './merge/merge-categories';
-import { logFactorial } from './special/log-gamma';
 import type { AnalysisSpec } from './spec/analysis-spec';
 import { EngineInputError, type InputIssue } from './spec/engine-input-error';
 
@@ -15,6 +15,13 @@ function issuesOf(input: unknown): InputIssue[] {
     throw error;
   }
   throw new Error('expected an EngineInputError');
+}
+
+/** ln m! as a plain sum of logarithms: the reference shares no code with the engine. */
+function logFactorial(m: number): number {
+  let sum = 0;
+  for (let i = 2; i <= m; i++) sum += Math.log(i);
+  return sum;
 }
 
 function logMultinomial(counts: readonly number[], shares: readonly number[]): number {
@@ -74,7 +81,10 @@ describe('analyze: published examples', () => {
     expect(result.tests.g?.p).toBeCloseTo(0.0043, 4);
   });
 
-  it("reproduces Mendel's 9:3:3:1 dihybrid cross (X² = 0.470, 3 d.f., P = 0.925; widely reproduced, from memory)", () => {
+  // Counts: Mendel, "Versuche über Pflanzen-Hybriden", Verhandlungen des naturforschenden Vereines in Brünn 4 (1866),
+  // the dihybrid cross (from memory); X² = 0.470, 3 d.f., P = 0.925 as widely reproduced (from memory; the exact values
+  // are checked against mpmath in the fixture test below).
+  it("reproduces Mendel's 9:3:3:1 dihybrid cross", () => {
     const result = analyze(mendel);
     expect(result.tests.pearson?.statistic).toBeCloseTo(0.47, 3);
     expect(result.tests.pearson?.p).toBeCloseTo(0.925, 3);
@@ -84,7 +94,9 @@ describe('analyze: published examples', () => {
     expect(result.report.line).toBe('χ²(3, N = 556) = 0.47, p = .925');
   });
 
-  it('uses the two-sided exact binomial test for two categories (McDonald 2014: 8 of 10, P = 0.109)', () => {
+  it('uses the two-sided exact binomial test for two categories', () => {
+    // McDonald, Handbook of Biological Statistics, 3rd ed. (2014), "Exact test of goodness-of-fit" (from memory):
+    // a cat used its right paw 8 times in 10 under 1:1, P = 0.109; exactly 2 × (1 + 10 + 45) / 1024 = 0.109375.
     const result = analyze({ observed: { labels: ['right', 'left'], counts: [8, 2] }, hypothesis: { kind: 'equal' }, tests: ['exact', 'pearson'] });
     expect(result.tests.exact?.method).toBe('binomial');
     expect(result.tests.exact?.p).toBeCloseTo(0.109375, 14);
@@ -113,8 +125,10 @@ describe('analyze: choices and options', () => {
     expect(Object.keys(result.tests)).toEqual(['cressieRead', 'pearson']);
     expect(result.tests.cressieRead?.lambda).toBeCloseTo(2 / 3, 15);
     expect(result.conclusion.test).toBe('cressieRead');
+    // At λ = 1 the power divergence is Pearson's X² (Cressie & Read 1984); X² for Mendel's counts in 40-digit mpmath.
     const lambdaOne = analyze({ ...mendel, tests: ['cressie-read'], cressieReadLambda: 1 });
-    expectClose(lambdaOne.tests.cressieRead?.statistic ?? NaN, 0.4700239808153477, { relative: 1e-12 });
+    const reference = rowWhere(readFixture('analyses').cases, { name: 'mendel' });
+    expectClose(lambdaOne.tests.cressieRead?.statistic ?? NaN, reference.pearson.statistic, { relative: 1e-13 });
   });
 
   it("reports Williams' correction and uses it when asked", () => {
@@ -198,11 +212,52 @@ describe('analyze: choices and options', () => {
     expect(after.report.cautions.join(' ')).toMatch(/Categories were merged/);
   });
 
-  it('reports progress and the engine version', () => {
+  it('reports progress while an exact test runs, rising from below 1 to 1, and the engine version', () => {
     const fractions: number[] = [];
-    const result = analyze(mendel, { onProgress: (fraction) => fractions.push(fraction) });
+    const spec: AnalysisSpec = {
+      observed: { labels: ['a', 'b', 'c', 'd', 'e', 'f'], counts: [191, 149, 179, 160, 135, 186] },
+      hypothesis: { kind: 'equal' },
+      tests: ['exact'],
+      exact: { method: 'enumerate', ordering: 'pearson' },
+    };
+    const result = analyze(spec, { onProgress: (fraction) => fractions.push(fraction) });
+    expect(fractions.filter((fraction) => fraction > 0 && fraction < 1).length).toBeGreaterThan(0);
+    fractions.forEach((fraction, i) => {
+      expect(fraction).toBeGreaterThanOrEqual(i > 0 ? fractions[i - 1] : 0);
+      expect(fraction).toBeLessThanOrEqual(1);
+    });
     expect(fractions[fractions.length - 1]).toBe(1);
     expect(result.engineVersion).toBe(ENGINE_VERSION);
+  });
+
+  it('gives the statistics, p-values, effect size and per-category rows that SciPy and mpmath give', () => {
+    // tools/fixtures/engine-reference.py: X² and G in 40 digits, p from mpmath.gammainc, the noncentrality interval by
+    // root-finding on scipy.stats.ncx2, exact binomial p per category (scipy.stats.binomtest) and Holm's adjustment.
+    for (const row of readFixture('analyses').cases) {
+      const result = analyze({
+        observed: { labels: row.counts.map((_, i) => `c${i}`), counts: row.counts },
+        hypothesis: { kind: 'proportions', values: row.shares },
+        tests: ['pearson', 'g'],
+        posthoc: { adjust: 'holm' },
+      });
+      const at = row.name;
+      expect(result.df).toBe(row.df);
+      expectClose(result.tests.pearson!.statistic, row.pearson.statistic, { relative: 1e-13 }, `X², ${at}`);
+      expectClose(result.tests.pearson!.p, row.pearson.p, { relative: 1e-12 }, `p of X², ${at}`);
+      expectClose(result.tests.g!.statistic, row.g.statistic, { relative: 1e-13 }, `G, ${at}`);
+      expectClose(result.tests.g!.p, row.g.p, { relative: 1e-12 }, `p of G, ${at}`);
+      expectClose(result.effectSize.w, row.w, { relative: 1e-13 }, `w, ${at}`);
+      expectClose(result.effectSize.interval!.low, row.wInterval.low, { relative: 1e-9, absolute: 1e-12 }, `w low, ${at}`);
+      expectClose(result.effectSize.interval!.high, row.wInterval.high, { relative: 1e-9 }, `w high, ${at}`);
+      row.categories.forEach((expected, i) => {
+        const actual = result.categories[i];
+        expectClose(actual.expected, expected.expected, { relative: 1e-15 }, `expected ${i}, ${at}`);
+        expectClose(actual.residual, expected.residual, { relative: 1e-13 }, `residual ${i}, ${at}`);
+        expectClose(actual.adjustedResidual, expected.adjustedResidual, { relative: 1e-13 }, `adjusted residual ${i}, ${at}`);
+        expectClose(actual.p, expected.p, { relative: 1e-13 }, `p ${i}, ${at}`);
+        expectClose(actual.pAdjusted, expected.pHolm, { relative: 1e-13 }, `Holm p ${i}, ${at}`);
+      });
+    }
   });
 
   it('writes a report with the line, a Markdown table and the cautions', () => {

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
-import type { User } from '@tallyfit/contracts';
-import { memberStudyIds, readsEveryStudy, RUNS_ANALYSES, studyRoleOf } from '../studies/study-access';
+import { can, type User } from '@tallyfit/contracts';
+import { memberStudyIds, readsEveryStudy, studyRoleOf } from '../studies/study-access';
 
 /**
  * Limits a query on `analyses` to what the caller may read: leads and admins read everything;
@@ -20,10 +20,8 @@ export async function mayChangeAnalysis(
   caller: User,
   analysis: { author: { id: number }; study: { id: number } | null },
 ): Promise<boolean> {
-  if (caller.role === 'admin') return true;
-  if (caller.role === 'viewer' || caller.role === 'lead') return false;
-  if (analysis.author.id === caller.id) return true;
+  if (!can(caller.role, 'analyses.run')) return false;
+  if (caller.role === 'admin' || analysis.author.id === caller.id) return true;
   if (!analysis.study) return false;
-  const studyRole = await studyRoleOf(db, analysis.study.id, caller.id);
-  return studyRole !== undefined && RUNS_ANALYSES.includes(studyRole);
+  return can(caller.role, 'analyses.run', (await studyRoleOf(db, analysis.study.id, caller.id)) ?? null);
 }

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import type { AuditAction, AuditEvent, ListAuditQuery, Page } from '@tallyfit/contracts';
-import { dbTime, isoDate } from '../http/db-time';
+import { dbTime, insertedId, isoDate } from '../http/db-time';
 
 export interface AuditEntry {
   /** Who did it; null when nobody is signed in (a failed sign-in). */
@@ -46,6 +46,22 @@ export async function recordAudit(trx: Knex | Knex.Transaction, entry: AuditEntr
     before_json: entry.before === undefined ? null : JSON.stringify(entry.before),
     after_json: entry.after === undefined ? null : JSON.stringify(entry.after),
   });
+}
+
+/**
+ * Inserts one row and records its audit event in the same transaction; answers the new row's id.
+ * The event is built from the id, so it always names the row it describes.
+ */
+export async function insertWithAudit(
+  trx: Knex.Transaction,
+  table: string,
+  row: Record<string, unknown>,
+  audit: (id: number) => AuditEntry,
+): Promise<number> {
+  const [inserted] = await trx(table).insert(row).returning('id');
+  const id = insertedId(inserted);
+  await recordAudit(trx, audit(id));
+  return id;
 }
 
 /** The audit trail, newest first, filtered. */

@@ -5,8 +5,8 @@ import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
 import { ownerOfApiToken } from '../tokens/api-tokens.service';
 import { unauthorized } from '../http/http-error';
 import { JWT_ALGORITHM, type AccessTokenClaims } from './access-token';
-import { API_TOKEN_PREFIX } from './token-hash';
-import { findUserById, publicUser } from './users.service';
+import { API_TOKEN_PREFIX } from '../identity/token-hash';
+import { findUserById, publicUser } from '../identity/users.service';
 
 /**
  * Builds the bearer check for one app instance (its own Passport, so test apps with different

@@ -163,8 +163,9 @@ describe('datasets', () => {
     // Invented: 60 plants scored in three classes under a 1:2:1 expectation.
     const rows = [...Array(18).fill('short'), ...Array(27).fill('medium'), ...Array(15).fill('tall')].map((size, i) => `${i + 1},${size}`);
     const created = await upload(['plant,size', ...rows].join('\n'), 'plants.csv');
-    const response = await ctx.as('analyst').post(`/datasets/${created.body.id}/analyses`, {
+    const response = await ctx.as('analyst').post('/analyses', {
       title: 'Plant height classes',
+      datasetId: created.body.id,
       selection: { shape: 'raw', column: 'size' },
       spec: { hypothesis: { kind: 'ratio', values: [2, 1, 1] }, tests: ['pearson'] },
     });
@@ -181,8 +182,9 @@ describe('datasets', () => {
 
   it('refuses an analysis whose hypothesis does not fit the dataset’s categories, naming the field', async () => {
     const created = await upload('colour\nred\ngreen\nred\n', 'colours.csv');
-    const response = await ctx.as('analyst').post(`/datasets/${created.body.id}/analyses`, {
+    const response = await ctx.as('analyst').post('/analyses', {
       title: 'Wrong length',
+      datasetId: created.body.id,
       selection: { shape: 'raw', column: 'colour' },
       spec: { hypothesis: { kind: 'proportions', values: [0.2, 0.3, 0.5] } },
     });

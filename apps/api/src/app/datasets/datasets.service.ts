@@ -1,11 +1,7 @@
 import { mkdirSync, renameSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Knex } from 'knex';
-import type { AnalysisRecord, CategoryCounts, CountSelection, DatasetAnalysisRequest, DatasetRecord, DatasetSummary, SegmentCounts, User } from '@tallyfit/contracts';
-import { analysisSpecSchema, type SegmentsInput } from '@tallyfit/engine';
-import { createAnalysis } from '../analyses/analyses.service';
-import type { EngineRunner } from '../engine/engine-runner';
-import { parseInput } from '../http/validate';
+import type { CategoryCounts, CountSelection, DatasetRecord, DatasetSummary, SegmentCounts, User } from '@tallyfit/contracts';
 import { recordAudit } from '../audit/audit.service';
 import { insertedId, isoDate, now } from '../http/db-time';
 import { forbidden, notFound, unprocessable } from '../http/http-error';
@@ -227,41 +223,23 @@ async function segmentCountsOf(dataDir: string, row: DatasetRow, selection: Extr
 }
 
 /**
- * Runs an analysis on a dataset's counts: the selection fills the spec's observed counts and, with
- * a segment column, every segment's counts are tested against the same spec (one pass over the
- * file for the split), all stored as one analysis.
+ * The counts of a raw selection split by a segment column, read from the stored file in one pass;
+ * a table of counts has no second column to split by (422).
  */
-export async function createDatasetAnalysis(
+export async function segmentsOfDataset(
   db: Knex,
-  engine: EngineRunner,
   dataDir: string,
   caller: User,
   id: number,
-  body: DatasetAnalysisRequest,
-): Promise<AnalysisRecord> {
-  if (body.segmentColumn !== undefined && body.selection.shape !== 'raw') {
+  selection: CountSelection,
+  segmentColumn: string,
+): Promise<SegmentCounts> {
+  if (selection.shape !== 'raw') {
     throw unprocessable('segments need raw rows (one row per observation); a table of counts has no second column to split by', [
       { path: 'segmentColumn', message: 'only with a selection of shape "raw"' },
     ]);
   }
-  const { dataset, counts } = await countsForSelection(db, dataDir, caller, id, body.selection);
-  const spec = parseInput(analysisSpecSchema, { ...body.spec, observed: { labels: counts.labels, counts: counts.counts } }, 'analysis');
-  let segments: { column: string; input: SegmentsInput } | undefined;
-  if (body.segmentColumn !== undefined && body.selection.shape === 'raw') {
-    const row = await readableRow(db, caller, id);
-    const split = await segmentCountsOf(dataDir, row, body.selection, body.segmentColumn);
-    segments = {
-      column: body.segmentColumn,
-      input: {
-        spec: body.spec,
-        labels: split.labels,
-        segments: split.segments.map(({ segment, counts: segmentCounts }) => ({ segment, counts: segmentCounts })),
-        adjust: body.segmentAdjust,
-        segmentName: body.segmentColumn,
-      },
-    };
-  }
-  return createAnalysis(db, engine, caller, { title: body.title, notes: body.notes, spec, studyId: dataset.studyId, datasetId: dataset.id, segments });
+  return segmentCountsOf(dataDir, await readableRow(db, caller, id), selection, segmentColumn);
 }
 
 /**

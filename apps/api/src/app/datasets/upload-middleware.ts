@@ -1,5 +1,5 @@
 import { randomBytes } from 'node:crypto';
-import { mkdirSync } from 'node:fs';
+import { mkdirSync, rmSync } from 'node:fs';
 import type { RequestHandler } from 'express';
 import multer from 'multer';
 import { HttpError, badRequest } from '../http/http-error';
@@ -10,7 +10,9 @@ export const unsupportedFileType = (fileName: string) =>
 
 /**
  * Receives one file in the multipart field `file`, written straight to a temporary folder on disk
- * (never held in memory), refusing kinds we do not read and files over the size limit.
+ * (never held in memory), refusing a form without one, kinds we do not read and files over the
+ * size limit. The file
+ * is removed when the response closes; a handler that keeps it moves it first.
  */
 export function receiveDatasetFile(tempDir: string, limitBytes: number): RequestHandler {
   mkdirSync(tempDir, { recursive: true });
@@ -31,7 +33,15 @@ export function receiveDatasetFile(tempDir: string, limitBytes: number): Request
       next(new HttpError(415, 'unsupported_media_type', 'send the dataset as multipart/form-data with the file in the field named "file"'));
       return;
     }
-    upload(req, res, (error: unknown) => next(error ? uploadError(error, limitBytes) : undefined));
+    // The received file is temporary whatever the answer: removed once the response is done.
+    res.once('close', () => {
+      if (req.file) rmSync(req.file.path, { force: true });
+    });
+    upload(req, res, (error: unknown) => {
+      if (error) return next(uploadError(error, limitBytes));
+      if (!req.file) return next(badRequest('send the dataset in the multipart field named "file"', [{ path: 'file', message: 'a file is required' }]));
+      next();
+    });
   };
 }
 

@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import type { Knex } from 'knex';
 import { ROLES, type Role } from '@tallyfit/contracts';
 import { createAnalysis } from '../analyses/analyses.service';
-import { countUsers, createUser } from '../auth/users.service';
+import { countUsers, createUser } from '../identity/users.service';
 import { inProcessEngine } from '../engine/engine-runner';
 import { addStudyMember, createStudy } from '../studies/studies.service';
 import { seedDemoDataset } from './demo-dataset';

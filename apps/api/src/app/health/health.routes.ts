@@ -1,21 +1,25 @@
 import type { Knex } from 'knex';
 import { ENGINE_VERSION } from '@tallyfit/engine';
-import type { Health } from '@tallyfit/contracts';
+import { healthSchema, type Health } from '@tallyfit/contracts';
 import { pendingMigrations } from '../database';
-import { publicAccess, type RouteDefinition } from '../http/route-table';
+import { defineRoute, type RouteDefinition } from '../http/route-table';
 
 export function healthRoutes(db: Knex): RouteDefinition[] {
   return [
-    {
+    defineRoute({
       method: 'get',
       path: '/health',
-      access: publicAccess,
+      access: 'public',
       summary: 'Whether the database is reachable and its schema current, and the engine version',
-      handler: async (_req, res) => {
+      responses: {
+        200: healthSchema,
+        503: { description: 'the database is unreachable or its schema is not current', schema: healthSchema },
+      },
+      handler: async ({ res }) => {
         const health = await checkHealth(db);
         res.status(health.status === 'ok' ? 200 : 503).json(health);
       },
-    },
+    }),
   ];
 }
 

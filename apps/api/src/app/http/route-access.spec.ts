@@ -1,13 +1,15 @@
 import request from 'supertest';
-import { ROLES, type Role } from '@tallyfit/contracts';
+import { can, CAPABILITY_NAMES, ROLES, type Role } from '@tallyfit/contracts';
 import { createTestApp, type TestContext } from '../../testing/test-app';
 import { fullPath, type RouteDefinition } from './route-table';
 
 /**
  * Deny by default, proven for every route and every role: each declared route is called as
  * anonymous, with a revoked API token, and as each role both through a sign-in token and
- * through a personal API token; the answer must be 401/403 exactly where the route's rule says.
- * Every route Express has mounted under /api must appear in the route table with a rule.
+ * through a personal API token; the answer must be 401/403 exactly where `can()` — the function
+ * the console uses to offer actions — says so for the route's capability. Every route Express
+ * has mounted under /api must appear in the route table with a rule, and every capability in the
+ * table guards at least one route, so the console never offers what no route enforces.
  */
 describe('who may call which route', () => {
   let ctx: TestContext;
@@ -44,12 +46,17 @@ describe('who may call which route', () => {
     for (const route of mounted) expect(declared).toContain(route);
   });
 
+  it('guards some route with every capability of the table', () => {
+    const used = new Set(ctx.routes.map((route) => route.access));
+    expect(CAPABILITY_NAMES.filter((capability) => !used.has(capability))).toEqual([]);
+  });
+
   it('answers every route as its rule says, for anonymous, a revoked token and every role', async () => {
     const outcome = (status: number) => (status === 401 || status === 403 ? status : 'let through');
     for (const route of ctx.routes) {
       const name = `${route.method.toUpperCase()} ${fullPath(route)}`;
       const anonymous = await call(route);
-      if (route.access.kind === 'public') {
+      if (route.access === 'public') {
         expect({ name, status: anonymous.status === 401 ? 401 : 'not refused' }).toEqual({ name, status: 'not refused' });
         continue;
       }
@@ -57,7 +64,7 @@ describe('who may call which route', () => {
       const revoked = await call(route, revokedToken);
       expect({ name, caller: 'revoked API token', status: revoked.status }).toEqual({ name, caller: 'revoked API token', status: 401 });
       for (const role of ROLES) {
-        const expected = route.access.roles.includes(role) ? 'let through' : 403;
+        const expected = can(role, route.access) ? 'let through' : 403;
         const signedIn = outcome((await call(route, ctx.tokens[role])).status);
         expect({ name, caller: role, status: signedIn }).toEqual({ name, caller: role, status: expected });
         const viaToken = outcome((await call(route, apiTokens[role])).status);
@@ -68,7 +75,7 @@ describe('who may call which route', () => {
   }, 120_000);
 
   it('answers 401 for a garbled token', async () => {
-    const route = ctx.routes.find((candidate) => candidate.access.kind !== 'public')!;
+    const route = ctx.routes.find((candidate) => candidate.access !== 'public')!;
     expect((await call(route, 'not-a-jwt')).status).toBe(401);
   });
 });

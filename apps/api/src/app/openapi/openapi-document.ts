@@ -1,13 +1,13 @@
 import { OpenAPIRegistry, OpenApiGeneratorV3 } from '@asteasolutions/zod-to-openapi';
-import type { z } from 'zod';
-import { apiErrorSchema } from '@tallyfit/contracts';
+import { z } from 'zod';
+import { apiErrorSchema, CAPABILITIES } from '@tallyfit/contracts';
 import { ENGINE_VERSION } from '@tallyfit/engine';
 import { API_PREFIX, type RouteDefinition, type RouteResponse } from '../http/route-table';
 
 /** Error statuses a route can answer, by kind of route. */
 function errorResponses(route: RouteDefinition): number[] {
   const statuses = [400];
-  if (route.access.kind !== 'public') statuses.push(401, 403);
+  if (route.access !== 'public') statuses.push(401, 403);
   if (route.path.includes(':')) statuses.push(404);
   if (route.method !== 'get') statuses.push(409, 413, 415, 422);
   if (route.path === '/auth/login') statuses.push(429);
@@ -28,6 +28,19 @@ const ERROR_DESCRIPTIONS: Record<number, string> = {
 
 const isRouteResponse = (value: z.ZodType | RouteResponse): value is RouteResponse =>
   typeof (value as RouteResponse).description === 'string' && !('safeParse' in value);
+
+/** The route's rule in words, read from the capability table. */
+function accessDescription(route: RouteDefinition): string {
+  if (route.access === 'public') return 'Open to anyone.';
+  const rule: { roles: readonly string[]; studyRoles?: readonly string[]; description: string } = CAPABILITIES[route.access];
+  const inStudy = rule.studyRoles ? ` Inside a study also needs the study role ${rule.studyRoles.join(' or ')} (admins excepted).` : '';
+  return `Capability \`${route.access}\` (${rule.description}). Roles: ${rule.roles.join(', ')}.${inStudy}`;
+}
+
+/** An upload's form: the file beside the declared text fields. */
+const uploadedFile = z.object({ file: z.string().meta({ format: 'binary', description: 'the file' }) });
+const documentedBody = (body: z.ZodType, contentType: string | undefined) =>
+  contentType === 'multipart/form-data' ? uploadedFile.and(body) : body;
 
 /** `/analyses/:id` → `/analyses/{id}` */
 const openApiPath = (path: string) => path.replace(/:(\w+)/g, '{$1}');
@@ -53,7 +66,7 @@ export function buildOpenApiDocument(routes: readonly RouteDefinition[]): object
   for (const route of routes) {
     if ((route.basePath ?? API_PREFIX) !== API_PREFIX) continue;
     const responses: Record<string, { description: string; content?: Record<string, { schema: z.ZodType | object }> }> = {};
-    for (const [status, declared] of Object.entries(route.responses ?? { 200: { description: 'success' } })) {
+    for (const [status, declared] of Object.entries(route.responses)) {
       if (!declared) continue;
       if (isRouteResponse(declared)) {
         responses[status] = declared.schema
@@ -68,7 +81,7 @@ export function buildOpenApiDocument(routes: readonly RouteDefinition[]): object
     for (const status of errorResponses(route)) {
       responses[String(status)] ??= { description: ERROR_DESCRIPTIONS[status], content: { 'application/json': { schema: errorSchema } } };
     }
-    const access = route.access.kind === 'public' ? 'Open to anyone.' : `Roles: ${route.access.roles.join(', ')}.`;
+    const access = accessDescription(route);
     const { body, bodyContentType, query, params } = route.request ?? {};
     registry.registerPath({
       method: route.method,
@@ -76,11 +89,11 @@ export function buildOpenApiDocument(routes: readonly RouteDefinition[]): object
       summary: route.summary,
       description: access,
       tags: [tagOf(route)],
-      security: route.access.kind === 'public' ? [] : [{ bearer: [] }],
+      security: route.access === 'public' ? [] : [{ bearer: [] }],
       request: {
         ...(params ? { params: params as never } : {}),
         ...(query ? { query: query as never } : {}),
-        ...(body ? { body: { content: { [bodyContentType ?? 'application/json']: { schema: body } } } } : {}),
+        ...(body ? { body: { content: { [bodyContentType ?? 'application/json']: { schema: documentedBody(body, bodyContentType) } } } } : {}),
       },
       responses,
     });

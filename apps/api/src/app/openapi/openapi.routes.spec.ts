@@ -21,7 +21,8 @@ describe('OpenAPI document and docs page', () => {
     expect(documented.sort()).toEqual(expected.sort());
 
     const createStudy = doc.paths['/studies'].post;
-    expect(createStudy.description).toBe('Roles: admin, analyst.');
+    expect(createStudy.description).toMatch(/^Capability `studies.create` \(.+\)\. Roles: admin, analyst\.$/);
+    expect(doc.paths['/studies/{id}'].patch.description).toContain('study role owner');
     expect(createStudy.security).toEqual([{ bearer: [] }]);
     expect(createStudy.requestBody.content['application/json'].schema.properties.name.type).toBe('string');
     expect(createStudy.responses['201'].content['application/json'].schema.properties.members.type).toBe('array');
@@ -33,6 +34,34 @@ describe('OpenAPI document and docs page', () => {
     expect(doc.paths['/auth/login'].post.security).toEqual([]);
     expect(doc.paths['/auth/login'].post.responses['429']).toBeDefined();
     expect(doc.paths['/analyses/{id}'].get.parameters[0]).toMatchObject({ name: 'id', in: 'path', required: true });
+  });
+
+  it('documents every route’s responses, the upload form and both ways of creating an analysis', async () => {
+    const doc = (await request(ctx.app).get('/api/v1/openapi.json')).body;
+    for (const [path, methods] of Object.entries(doc.paths as Record<string, Record<string, { responses: Record<string, unknown> }>>)) {
+      for (const [method, operation] of Object.entries(methods)) {
+        const successes = Object.keys(operation.responses).filter((status) => status.startsWith('2'));
+        expect({ route: `${method} ${path}`, successes: successes.length > 0 }).toEqual({ route: `${method} ${path}`, successes: true });
+      }
+    }
+    expect(doc.paths['/health'].get.responses['200'].content['application/json'].schema.properties.status).toBeDefined();
+    const upload = doc.paths['/studies/{studyId}/datasets'].post.requestBody.content['multipart/form-data'].schema;
+    expect(JSON.stringify(upload)).toContain('"format":"binary"');
+    expect(JSON.stringify(upload)).toContain('labelColumn');
+    const create = JSON.stringify(doc.paths['/analyses'].post.requestBody.content['application/json'].schema);
+    expect(create).toContain('datasetId');
+    expect(create).toContain('observed');
+  });
+
+  it('refuses ids that are not plain decimal digits instead of reading them as a number', async () => {
+    const token = ctx.tokens.admin;
+    for (const id of ['0x1', '%201', '1e0', '01', '-1']) {
+      const response = await request(ctx.app).get(`/api/v1/studies/${id}`).set('Authorization', `Bearer ${token}`);
+      expect({ id, status: response.status }).toEqual({ id, status: 400 });
+    }
+    const rename = await request(ctx.app).patch('/api/v1/studies/0x1').set('Authorization', `Bearer ${token}`).send({ name: 'renamed' });
+    expect(rename.status).toBe(400);
+    expect(rename.body.error.fields[0].path).toBe('id');
   });
 
   it('serves the browsable page and its files from this server only', async () => {

@@ -2,7 +2,7 @@ import type { Request, Response } from 'express';
 import swaggerUi from 'swagger-ui-express';
 import { z } from 'zod';
 import { notFound } from '../http/http-error';
-import { API_PREFIX, publicAccess, type RouteDefinition } from '../http/route-table';
+import { API_PREFIX, defineRoute, type RouteDefinition } from '../http/route-table';
 import { buildOpenApiDocument } from './openapi-document';
 
 const DOCS_BASE = '/api';
@@ -15,6 +15,8 @@ const DOCS_ASSETS = new Set([
   'favicon-32x32.png',
   'favicon-16x16.png',
 ]);
+
+const docsAssetParamsSchema = z.object({ asset: z.string() });
 
 /**
  * The OpenAPI document and its browsable page. `routes` is read when first asked for, so the
@@ -32,43 +34,46 @@ export function openApiRoutes(routes: () => readonly RouteDefinition[]): RouteDe
   ];
 
   return [
-    {
+    defineRoute({
       method: 'get',
       path: '/openapi.json',
-      access: publicAccess,
+      access: 'public',
       summary: 'This API described in OpenAPI 3',
       tag: 'docs',
       responses: { 200: z.record(z.string(), z.unknown()) },
-      handler: (_req, res) => {
-        document ??= buildOpenApiDocument(routes());
-        res.json(document);
-      },
-    },
-    {
+      handler: () => (document ??= buildOpenApiDocument(routes())),
+    }),
+    defineRoute({
       method: 'get',
       path: '/docs',
       basePath: DOCS_BASE,
-      access: publicAccess,
+      access: 'public',
       summary: 'The API documentation as a browsable page',
-      handler: (req, res) => {
+      responses: { 200: { description: 'the documentation page', contentType: 'text/html' } },
+      handler: ({ req, res }) => {
         // The page loads its files by relative URL, so it must be served from /api/docs/.
         if (!req.originalUrl.split('?')[0].endsWith('/')) return res.redirect(301, `${DOCS_BASE}/docs/`);
         page(req, res);
       },
-    },
-    {
+    }),
+    defineRoute({
       method: 'get',
       path: '/docs/:asset',
       basePath: DOCS_BASE,
-      access: publicAccess,
+      access: 'public',
       summary: 'A file of the documentation page (script, style sheet or icon)',
-      handler: (req, res, next) => {
-        const asset = String(req.params['asset']);
-        if (!DOCS_ASSETS.has(asset)) throw notFound(`no such documentation file: ${asset}`);
-        // swagger-ui-express answers the init script itself and the rest from swagger-ui-dist.
-        req.url = `/${asset}`;
-        initScript(req, res, (error) => (error ? next(error) : assets(req, res, next)));
+      request: { params: docsAssetParamsSchema },
+      responses: { 200: { description: 'the file', contentType: 'application/octet-stream' } },
+      handler: ({ params, req, res }) => {
+        if (!DOCS_ASSETS.has(params.asset)) throw notFound(`no such documentation file: ${params.asset}`);
+        return new Promise<void>((resolve, reject) => {
+          // swagger-ui-express answers the init script itself and the rest from swagger-ui-dist.
+          req.url = `/${params.asset}`;
+          const fail = (error?: unknown) => (error ? reject(error) : reject(notFound(`no such documentation file: ${params.asset}`)));
+          res.once('finish', () => resolve());
+          initScript(req, res, (error) => (error ? fail(error) : assets(req, res, fail)));
+        });
       },
-    },
+    }),
   ];
 }

@@ -1,10 +1,10 @@
 import type { Knex } from 'knex';
 import type { ChangePasswordRequest, CreatePersonRequest, Person, UpdatePersonRequest, User } from '@tallyfit/contracts';
-import { recordAudit } from '../audit/audit.service';
-import { hashPassword, verifyPassword } from '../auth/password';
-import { revokeAllRefreshTokens } from '../auth/refresh-tokens.service';
-import { findUserByEmail, findUserById } from '../auth/users.service';
-import { insertedId, isoDate } from '../http/db-time';
+import { insertWithAudit, recordAudit } from '../audit/audit.service';
+import { hashPassword, verifyPassword } from '../identity/password';
+import { revokeAllRefreshTokens } from '../identity/refresh-tokens.service';
+import { findUserByEmail, findUserById } from '../identity/users.service';
+import { isoDate } from '../http/db-time';
 import { conflict, notFound, unprocessable } from '../http/http-error';
 
 interface PersonRow {
@@ -54,21 +54,17 @@ export async function getPerson(db: Knex, id: number): Promise<Person> {
 export async function createPerson(db: Knex, caller: User, request: CreatePersonRequest): Promise<Person> {
   if (await findUserByEmail(db, request.email)) throw conflict(`someone already signs in with ${request.email.toLowerCase()}`);
   const passwordHash = await hashPassword(request.password);
-  const id = await db.transaction(async (trx) => {
-    const [row] = await trx('users')
-      .insert({ email: request.email.toLowerCase(), name: request.name, role: request.role, password_hash: passwordHash })
-      .returning('id');
-    const personId = insertedId(row);
-    await recordAudit(trx, {
+  const row = { email: request.email.toLowerCase(), name: request.name, role: request.role, password_hash: passwordHash };
+  const id = await db.transaction((trx) =>
+    insertWithAudit(trx, 'users', row, (personId) => ({
       actorId: caller.id,
       action: 'create',
       entityType: 'user',
       entityId: personId,
       summary: `added ${request.name} as ${request.role}`,
-      after: { email: request.email.toLowerCase(), name: request.name, role: request.role, disabled: false },
-    });
-    return personId;
-  });
+      after: { email: row.email, name: request.name, role: request.role, disabled: false },
+    })),
+  );
   return getPerson(db, id);
 }
 

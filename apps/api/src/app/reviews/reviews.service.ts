@@ -1,8 +1,8 @@
 import type { Knex } from 'knex';
 import type { AnalysisRecord, AnalysisStatus, Comment, Review, User } from '@tallyfit/contracts';
 import { getAnalysisById, getReadableAnalysis } from '../analyses/analyses.service';
-import { recordAudit } from '../audit/audit.service';
-import { insertedId, isoDate, now } from '../http/db-time';
+import { insertWithAudit, recordAudit } from '../audit/audit.service';
+import { isoDate, now } from '../http/db-time';
 import { conflict, forbidden } from '../http/http-error';
 
 type Decision = Review['decision'];
@@ -21,13 +21,10 @@ const STATUS_WORDS: Record<AnalysisStatus, string> = {
   returned: 'returned',
 };
 
+/** Who may decide is the route's capability; who may submit is also a matter of authorship. */
 function checkReviewer(caller: User, analysis: AnalysisRecord, decision: Decision): void {
-  if (decision === 'submitted') {
-    if (analysis.author.id !== caller.id && caller.role !== 'admin') {
-      throw forbidden('only the author of an analysis (or an admin) may submit it for review');
-    }
-  } else if (caller.role !== 'lead' && caller.role !== 'admin') {
-    throw forbidden('only a lead or an admin may sign off or return an analysis');
+  if (decision === 'submitted' && analysis.author.id !== caller.id && caller.role !== 'admin') {
+    throw forbidden('only the author of an analysis (or an admin) may submit it for review');
   }
 }
 
@@ -109,10 +106,8 @@ export async function listComments(db: Knex, caller: User, analysisId: number): 
 /** Anyone who can read an analysis may comment on it. */
 export async function addComment(db: Knex, caller: User, analysisId: number, body: string): Promise<Comment> {
   const analysis = await getReadableAnalysis(db, caller, analysisId);
-  const id = await db.transaction(async (trx) => {
-    const [row] = await trx('analysis_comments').insert({ analysis_id: analysisId, author_id: caller.id, body }).returning('id');
-    const commentId = insertedId(row);
-    await recordAudit(trx, {
+  const id = await db.transaction((trx) =>
+    insertWithAudit(trx, 'analysis_comments', { analysis_id: analysisId, author_id: caller.id, body }, (commentId) => ({
       actorId: caller.id,
       action: 'create',
       entityType: 'comment',
@@ -120,8 +115,7 @@ export async function addComment(db: Knex, caller: User, analysisId: number, bod
       studyId: analysis.study?.id ?? null,
       summary: `commented on analysis "${analysis.title}"`,
       after: { analysisId, body: body.slice(0, 200) },
-    });
-    return commentId;
-  });
+    })),
+  );
   return toComment(await selectComments(db).where('analysis_comments.id', id).first());
 }

@@ -1,13 +1,13 @@
 import type { Knex } from 'knex';
 import type { CreateShareRequest, Share, User } from '@tallyfit/contracts';
 import { getReadableAnalysis } from '../analyses/analyses.service';
-import { recordAudit } from '../audit/audit.service';
+import { insertWithAudit } from '../audit/audit.service';
 import type { Config } from '../config';
-import { insertedId, isoDate } from '../http/db-time';
+import { isoDate } from '../http/db-time';
 import { HttpError } from '../http/http-error';
 import type { MailService } from '../mail/mail-service';
 import { markdownReport } from '../reports/markdown-report';
-import { analysisLink, downloadName, reportSourceFor } from '../reports/reports.routes';
+import { analysisLink, downloadName, reportSourceFor } from '../reports/reports.service';
 
 interface ShareRow {
   id: number;
@@ -77,19 +77,16 @@ export async function shareAnalysis(
   } catch (error) {
     failureReason = (error instanceof Error ? error.message : String(error)).slice(0, 500);
   }
-  const id = await db.transaction(async (trx) => {
-    const [row] = await trx('shares')
-      .insert({
-        analysis_id: analysisId,
-        sent_by: caller.id,
-        recipients_json: JSON.stringify(recipients),
-        message: request.message ?? null,
-        status: failureReason ? 'failed' : 'sent',
-        failure_reason: failureReason,
-      })
-      .returning('id');
-    const shareId = insertedId(row);
-    await recordAudit(trx, {
+  const share = {
+    analysis_id: analysisId,
+    sent_by: caller.id,
+    recipients_json: JSON.stringify(recipients),
+    message: request.message ?? null,
+    status: failureReason ? 'failed' : 'sent',
+    failure_reason: failureReason,
+  };
+  const id = await db.transaction((trx) =>
+    insertWithAudit(trx, 'shares', share, (shareId) => ({
       actorId: caller.id,
       action: 'share',
       entityType: 'analysis',
@@ -98,10 +95,9 @@ export async function shareAnalysis(
       summary: failureReason
         ? `tried to share analysis "${source.title}" with ${recipients.join(', ')}; the mail server did not take it`
         : `shared analysis "${source.title}" with ${recipients.join(', ')}`,
-      after: { shareId, to: recipients, status: failureReason ? 'failed' : 'sent', failureReason },
-    });
-    return shareId;
-  });
+      after: { shareId, to: recipients, status: share.status, failureReason },
+    })),
+  );
   if (failureReason) {
     throw new HttpError(
       502,

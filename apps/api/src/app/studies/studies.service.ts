@@ -1,16 +1,17 @@
 import type { Knex } from 'knex';
-import type {
-  AddStudyMemberRequest,
-  CreateStudyRequest,
-  Study,
-  StudyDetail,
-  StudyMember,
-  StudyRole,
-  UpdateStudyRequest,
-  User,
+import {
+  can,
+  type AddStudyMemberRequest,
+  type CreateStudyRequest,
+  type Study,
+  type StudyDetail,
+  type StudyMember,
+  type StudyRole,
+  type UpdateStudyRequest,
+  type User,
 } from '@tallyfit/contracts';
-import { recordAudit } from '../audit/audit.service';
-import { insertedId, isoDate, now } from '../http/db-time';
+import { insertWithAudit, recordAudit } from '../audit/audit.service';
+import { isoDate, now } from '../http/db-time';
 import { conflict, forbidden, notFound, unprocessable } from '../http/http-error';
 import { memberStudyIds, readsEveryStudy, studyRoleOf } from './study-access';
 
@@ -100,7 +101,7 @@ export async function getStudy(db: Knex, caller: User, id: number): Promise<Stud
 /** Admins and the study's owners manage a study; others who can read it get 403, the rest 404. */
 async function requireManager(db: Knex, caller: User, id: number): Promise<StudyDetail> {
   const study = await getStudy(db, caller, id);
-  if (caller.role !== 'admin' && study.myStudyRole !== 'owner') {
+  if (!can(caller.role, 'studies.manage', study.myStudyRole)) {
     throw forbidden('only an owner of this study or an admin may change it');
   }
   return study;
@@ -115,20 +116,17 @@ const studySummary = (study: Pick<StudyDetail, 'name' | 'description' | 'archive
 /** Creates a study with its creator as owner, in one transaction with its audit event. */
 export async function createStudy(db: Knex, caller: User, request: CreateStudyRequest): Promise<StudyDetail> {
   const id = await db.transaction(async (trx) => {
-    const [row] = await trx('studies')
-      .insert({ name: request.name, description: request.description ?? null, created_by: caller.id })
-      .returning('id');
-    const studyId = insertedId(row);
-    await trx('study_members').insert({ study_id: studyId, user_id: caller.id, study_role: 'owner' });
-    await recordAudit(trx, {
+    const study = { name: request.name, description: request.description ?? null, created_by: caller.id };
+    const studyId = await insertWithAudit(trx, 'studies', study, (newId) => ({
       actorId: caller.id,
       action: 'create',
       entityType: 'study',
-      entityId: studyId,
-      studyId,
+      entityId: newId,
+      studyId: newId,
       summary: `created study "${request.name}"`,
-      after: { name: request.name, description: request.description ?? null, archived: false },
-    });
+      after: { name: request.name, description: study.description, archived: false },
+    }));
+    await trx('study_members').insert({ study_id: studyId, user_id: caller.id, study_role: 'owner' });
     return studyId;
   });
   return getStudy(db, caller, id);
@@ -272,7 +270,7 @@ export async function requireStudyContributor(db: Knex, caller: User, studyId: n
   const study = await db('studies').where({ id: studyId }).first('id', 'archived_at');
   const studyRole = study ? await studyRoleOf(db, studyId, caller.id) : undefined;
   if (!study || (!readsEveryStudy(caller) && !studyRole)) throw notFound(`study ${studyId} does not exist`);
-  if (caller.role !== 'admin' && studyRole !== 'owner' && studyRole !== 'contributor') {
+  if (!can(caller.role, 'analyses.run', studyRole ?? null)) {
     throw forbidden('only owners and contributors of this study may add work to it');
   }
   if (study.archived_at !== null) throw conflict(`study ${studyId} is archived; restore it before adding work to it`);

@@ -11,6 +11,3 @@ export async function studyRoleOf(db: Knex, studyId: number, userId: number): Pr
 
 /** A subquery of the ids of the studies a person belongs to. */
 export const memberStudyIds = (db: Knex, userId: number) => db('study_members').select('study_id').where('user_id', userId);
-
-/** Study roles that may run analyses in the study. */
-export const RUNS_ANALYSES: readonly StudyRole[] = ['owner', 'contributor'];

@@ -1,9 +1,8 @@
 import type { Knex } from 'knex';
 import { z } from 'zod';
-import { apiTokenSchema, createApiTokenRequestSchema, createdApiTokenSchema, idParamsSchema } from '@tallyfit/contracts';
+import { apiTokenSchema, can, createApiTokenRequestSchema, createdApiTokenSchema, idParamsSchema } from '@tallyfit/contracts';
 import { forbidden } from '../http/http-error';
-import { anyRole, type RouteDefinition } from '../http/route-table';
-import { parseInput } from '../http/validate';
+import { defineRoute, type RouteDefinition } from '../http/route-table';
 import { createApiToken, listApiTokens, revokeApiToken } from './api-tokens.service';
 
 const listTokensQuerySchema = z.object({
@@ -15,47 +14,40 @@ const listTokensQuerySchema = z.object({
 
 export function apiTokensRoutes(db: Knex): RouteDefinition[] {
   return [
-    {
+    defineRoute({
       method: 'get',
       path: '/tokens',
-      access: anyRole,
+      access: 'account.use',
       summary: "The caller's personal API tokens (admins: anyone's with owner=all or owner=<id>); never the secrets",
       tag: 'tokens',
       request: { query: listTokensQuerySchema },
       responses: { 200: z.array(apiTokenSchema) },
-      handler: async (req, res) => {
-        const { owner } = parseInput(listTokensQuerySchema, req.query, 'query');
-        if (owner !== 'me' && Number(owner) !== req.user!.id && req.user!.role !== 'admin') {
+      handler: ({ query: { owner }, user }) => {
+        if (owner !== 'me' && Number(owner) !== user.id && !can(user.role, 'people.manage')) {
           throw forbidden("only an admin may list other people's tokens");
         }
-        res.json(await listApiTokens(db, owner === 'me' ? req.user!.id : owner === 'all' ? 'all' : Number(owner)));
+        return listApiTokens(db, owner === 'me' ? user.id : owner === 'all' ? 'all' : Number(owner));
       },
-    },
-    {
+    }),
+    defineRoute({
       method: 'post',
       path: '/tokens',
-      access: anyRole,
+      access: 'account.use',
       summary: 'Create a named personal API token; the answer is the only time the token is shown',
       tag: 'tokens',
       request: { body: createApiTokenRequestSchema },
       responses: { 201: createdApiTokenSchema },
-      handler: async (req, res) => {
-        const { name } = parseInput(createApiTokenRequestSchema, req.body, 'token');
-        res.status(201).json(await createApiToken(db, req.user!, name));
-      },
-    },
-    {
+      handler: ({ body, user }) => createApiToken(db, user, body.name),
+    }),
+    defineRoute({
       method: 'delete',
       path: '/tokens/:id',
-      access: anyRole,
+      access: 'account.use',
       summary: 'Revoke a personal API token (one’s own; admins: anyone’s)',
       tag: 'tokens',
       request: { params: idParamsSchema },
       responses: { 200: apiTokenSchema },
-      handler: async (req, res) => {
-        const { id } = parseInput(idParamsSchema, req.params, 'path');
-        res.json(await revokeApiToken(db, req.user!, id));
-      },
-    },
+      handler: ({ params, user }) => revokeApiToken(db, user, params.id),
+    }),
   ];
 }

@@ -1,9 +1,9 @@
 import type { Knex } from 'knex';
-import type { ApiToken, CreatedApiToken, User } from '@tallyfit/contracts';
-import { recordAudit } from '../audit/audit.service';
-import { API_TOKEN_PREFIX, hashToken, newToken } from '../auth/token-hash';
-import { findUserById, type StoredUser } from '../auth/users.service';
-import { insertedId, isoDate, now } from '../http/db-time';
+import { can, type ApiToken, type CreatedApiToken, type User } from '@tallyfit/contracts';
+import { insertWithAudit, recordAudit } from '../audit/audit.service';
+import { API_TOKEN_PREFIX, hashToken, newToken } from '../identity/token-hash';
+import { findUserById, type StoredUser } from '../identity/users.service';
+import { isoDate, now } from '../http/db-time';
 import { notFound } from '../http/http-error';
 
 interface TokenRow {
@@ -33,21 +33,17 @@ const selectTokens = (db: Knex) =>
 /** Creates a personal token; the secret is in the answer and nowhere else (only its hash is stored). */
 export async function createApiToken(db: Knex, owner: User, name: string): Promise<CreatedApiToken> {
   const token = newToken(API_TOKEN_PREFIX);
-  const id = await db.transaction(async (trx) => {
-    const [row] = await trx('api_tokens')
-      .insert({ user_id: owner.id, name, token_hash: hashToken(token), hint: token.slice(0, 8) })
-      .returning('id');
-    const tokenId = insertedId(row);
-    await recordAudit(trx, {
+  const hint = token.slice(0, 8);
+  const id = await db.transaction((trx) =>
+    insertWithAudit(trx, 'api_tokens', { user_id: owner.id, name, token_hash: hashToken(token), hint }, (tokenId) => ({
       actorId: owner.id,
       action: 'create',
       entityType: 'api-token',
       entityId: tokenId,
       summary: `created API token "${name}"`,
-      after: { name, hint: token.slice(0, 8) },
-    });
-    return tokenId;
-  });
+      after: { name, hint },
+    })),
+  );
   return { ...toApiToken(await selectTokens(db).where('api_tokens.id', id).first()), token };
 }
 
@@ -67,7 +63,7 @@ export async function listApiTokens(db: Knex, ownerId: number | 'all'): Promise<
 /** Revokes a token of the caller's own, or anyone's for an admin; others' tokens are answered 404. */
 export async function revokeApiToken(db: Knex, caller: User, id: number): Promise<ApiToken> {
   const row: TokenRow | undefined = await selectTokens(db).where('api_tokens.id', id).first();
-  if (!row || (row.user_id !== caller.id && caller.role !== 'admin')) throw notFound(`API token ${id} does not exist`);
+  if (!row || (row.user_id !== caller.id && !can(caller.role, 'people.manage'))) throw notFound(`API token ${id} does not exist`);
   if (row.revoked_at === null) {
     await db.transaction(async (trx) => {
       await trx('api_tokens').where({ id }).update({ revoked_at: now(trx) });

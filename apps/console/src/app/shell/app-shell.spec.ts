@@ -22,8 +22,8 @@ describe('AppShell', () => {
 
   const links = (root: HTMLElement) => Array.from(root.querySelectorAll('nav a, nav button')).map((el) => el.textContent?.trim());
 
-  it('shows a viewer only the places to read', () => {
-    expect(links(render('viewer').nativeElement)).toEqual(['Studies', 'History', 'My analyses']);
+  it('shows a viewer the places to read and the planner, nothing that changes data', () => {
+    expect(links(render('viewer').nativeElement)).toEqual(['Studies', 'History', 'My analyses', 'Planner']);
   });
 
   it('gives a lead the audit trail directly and an admin the admin menu', () => {

@@ -3,9 +3,13 @@ import { ADMIN_NAV, MAIN_NAV, visibleTo } from './nav-items';
 const labels = (items: { label: string }[]) => items.map((item) => item.label);
 
 describe('navigation by role', () => {
-  it('offers a viewer only places to read', () => {
-    expect(labels(visibleTo(MAIN_NAV, 'viewer'))).toEqual(['Studies', 'History', 'My analyses']);
+  it('offers a viewer places to read and the planner, which computes without storing anything', () => {
+    expect(labels(visibleTo(MAIN_NAV, 'viewer'))).toEqual(['Studies', 'History', 'My analyses', 'Planner']);
     expect(visibleTo(ADMIN_NAV, 'viewer')).toEqual([]);
+  });
+
+  it('offers nobody signed out anything', () => {
+    expect(visibleTo(MAIN_NAV, null)).toEqual([]);
   });
 
   it('offers a lead the audit trail but not people or the outbox', () => {

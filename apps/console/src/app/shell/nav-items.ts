@@ -1,11 +1,11 @@
-import type { Role } from '@tallyfit/contracts';
+import { can, type Capability, type Role } from '@tallyfit/contracts';
 
 export interface NavItem {
   path: string;
   label: string;
   icon: string;
-  /** Who sees the link; everyone signed in when absent. */
-  roles?: readonly Role[];
+  /** Who sees the link: those with this capability; everyone signed in when absent. */
+  capability?: Capability;
   /** Active only on exactly this path (so "My analyses" is not lit on a single analysis). */
   exact?: boolean;
 }
@@ -15,18 +15,18 @@ export const MAIN_NAV: readonly NavItem[] = [
   { path: '/studies', label: 'Studies', icon: 'folder_open' },
   { path: '/history', label: 'History', icon: 'history' },
   { path: '/analyses', label: 'My analyses', icon: 'list_alt', exact: true },
-  { path: '/analyses/new', label: 'New analysis', icon: 'add_chart', roles: ['admin', 'analyst'] },
-  // Planning future checks is for those who run or direct them; viewers only read results.
-  { path: '/planner', label: 'Planner', icon: 'query_stats', roles: ['admin', 'lead', 'analyst'] },
+  { path: '/analyses/new', label: 'New analysis', icon: 'add_chart', capability: 'analyses.run' },
+  // The planner computes in the browser with the engine, which every role may use.
+  { path: '/planner', label: 'Planner', icon: 'query_stats', capability: 'engine.compute' },
 ];
 
 /** The admin area's places. */
 export const ADMIN_NAV: readonly NavItem[] = [
-  { path: '/admin/people', label: 'People', icon: 'group', roles: ['admin'] },
-  { path: '/admin/audit', label: 'Audit trail', icon: 'policy', roles: ['admin', 'lead'] },
-  { path: '/admin/outbox', label: 'Mail outbox', icon: 'outgoing_mail', roles: ['admin'] },
+  { path: '/admin/people', label: 'People', icon: 'group', capability: 'people.manage' },
+  { path: '/admin/audit', label: 'Audit trail', icon: 'policy', capability: 'audit.read' },
+  { path: '/admin/outbox', label: 'Mail outbox', icon: 'outgoing_mail', capability: 'outbox.read' },
 ];
 
 export function visibleTo(items: readonly NavItem[], role: Role | null): NavItem[] {
-  return items.filter((item) => !item.roles || (role !== null && item.roles.includes(role)));
+  return items.filter((item) => role !== null && (!item.capability || can(role, item.capability)));
 }

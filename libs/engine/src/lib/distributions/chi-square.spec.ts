@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { closedFormLogUpperTail } from '../../testing/chi-square-closed-form';
 import { expectClose } from '../../testing/expect-close';
+import { readFixture, rowWhere } from '../../testing/reference-fixtures';
 import { jStat, stdlibChiSquareCdf, stdlibChiSquareQuantile } from '../../testing/reference-libraries';
 import {
   chiSquareCdf,
@@ -12,17 +13,21 @@ import {
 } from './chi-square';
 
 const DEGREES = [1, 2, 3, 4, 5, 7, 10, 15, 20, 30, 50, 100, 200, 500, 1000];
+// mpmath.gammainc (regularized) in 40 digits, written by tools/fixtures/engine-reference.py.
+const reference = readFixture('chi-square');
 const MULTIPLES = [0.01, 0.1, 0.3, 0.5, 0.8, 1, 1.2, 1.5, 2, 3];
 
 describe('chi-square tails', () => {
   it('reproduces the p-value of a published example', () => {
-    // McDonald, Handbook of Biological Statistics, 3rd ed. (2014), chi-square test of goodness-of-fit:
-    // X² = 5.607 on 1 d.f. gives P = 0.0179.
+    // McDonald, Handbook of Biological Statistics, 3rd ed. (2014), "Chi-square test of goodness-of-fit"
+    // (from memory): X² = 5.607 on 1 d.f. gives P = 0.0179.
     expect(chiSquareSurvival(5.6071, 1)).toBeCloseTo(0.0179, 4);
+    expectClose(chiSquareSurvival(5.6071, 1), rowWhere(reference.tails, { x: 5.6071, df: 1 }).upper, { relative: 1e-12 });
   });
 
   it('matches the standard critical values table', () => {
-    // Abramowitz & Stegun (1964), Table 26.8, upper 5% points: 3.841, 5.991, 7.815, 18.307; 1%: 6.635.
+    // Abramowitz & Stegun, Handbook of Mathematical Functions (1964), Table 26.8 "Percentage points of the
+    // χ²-distribution", pp. 984–985 (page numbers from memory): upper 5% points 3.841, 5.991, 7.815, 18.307; 1%: 6.635.
     expect(chiSquareCriticalValue(0.05, 1)).toBeCloseTo(3.841, 3);
     expect(chiSquareCriticalValue(0.05, 2)).toBeCloseTo(5.991, 3);
     expect(chiSquareCriticalValue(0.05, 3)).toBeCloseTo(7.815, 3);
@@ -77,9 +82,9 @@ describe('chi-square tails', () => {
   });
 
   it('gives the far-tail log p-values stated in the specification, where 1 − cdf is 0', () => {
-    // df = 1, x = 1500: ln p ≈ −753.883; df = 3, x = 1e4: ln p ≈ −4995.6 (issue 3; confirmed by the closed forms above).
-    expect(chiSquareLogSurvival(1500, 1)).toBeCloseTo(-753.883, 3);
-    expect(chiSquareLogSurvival(1e4, 3)).toBeCloseTo(-4995.62, 2);
+    // df = 1, x = 1500: ln p ≈ −753.883; df = 3, x = 1e4: ln p ≈ −4995.6 (mpmath fixture; also the closed forms above).
+    expectClose(chiSquareLogSurvival(1500, 1), rowWhere(reference.tails, { x: 1500, df: 1 }).logUpper, { relative: 4 * Number.EPSILON });
+    expectClose(chiSquareLogSurvival(1e4, 3), rowWhere(reference.tails, { x: 1e4, df: 3 }).logUpper, { relative: 4 * Number.EPSILON });
     expect(1 - stdlibChiSquareCdf(1500, 1)).toBe(0);
     expect(1 - jStat.chisquare.cdf(1e4, 3)).toBe(0);
     // df = 2 has Q = e^{−x/2} exactly.
@@ -110,14 +115,35 @@ describe('chi-square tails', () => {
     );
   });
 
-  it('keeps p in [0, 1], the tails complementary and the log consistent (property)', () => {
+  it('gives each tail and its logarithm as mpmath does, the small tail to relative 1e-12 (fixture, 1e-4 to 1e4 × df)', () => {
+    for (const row of reference.tails) {
+      const tails = chiSquareTails(row.x, row.df);
+      const at = `x ${row.x}, df ${row.df}`;
+      if (row.upper > 0) expectClose(tails.upper, row.upper, { relative: 1e-12 }, `upper, ${at}`);
+      else expect(tails.upper).toBe(0);
+      if (row.lower > 0) expectClose(tails.lower, row.lower, { relative: 1e-12 }, `lower, ${at}`);
+      // ln p's absolute error is p's relative error (1e-12 as above); far out, a few ulps of |ln p|.
+      expectClose(tails.logUpper, row.logUpper, { absolute: 1e-12, relative: 8 * Number.EPSILON }, `ln upper, ${at}`);
+      expectClose(tails.logLower, row.logLower, { absolute: 1e-12, relative: 8 * Number.EPSILON }, `ln lower, ${at}`);
+    }
+  });
+
+  it('gives critical values and lower quantiles as mpmath does (relative 1e-13, fixture)', () => {
+    for (const row of reference.quantiles) {
+      expectClose(chiSquareCriticalValue(row.alpha, row.df), row.criticalValue, { relative: 1e-13 }, `critical value, alpha ${row.alpha}, df ${row.df}`);
+      if (row.lowerQuantile !== undefined) {
+        expectClose(chiSquareQuantile(row.alpha, row.df), row.lowerQuantile, { relative: 1e-13 }, `lower quantile, p ${row.alpha}, df ${row.df}`);
+      }
+    }
+  });
+
+  it('keeps p in [0, 1] and the log consistent (property)', () => {
     fc.assert(
       fc.property(fc.double({ min: 0, max: 1e5, noNaN: true }), fc.double({ min: 0.5, max: 2000, noNaN: true }), (x, df) => {
         const tails = chiSquareTails(x, df);
         expect(tails.upper).toBeGreaterThanOrEqual(0);
         expect(tails.upper).toBeLessThanOrEqual(1);
         expect(Number.isNaN(tails.logUpper)).toBe(false);
-        expect(Math.abs(tails.upper + tails.lower - 1)).toBeLessThan(1e-15);
         if (tails.upper > 1e-300) expectClose(Math.log(tails.upper), tails.logUpper, { absolute: 1e-12 });
       }),
       { numRuns: 500 },

@@ -1,10 +1,12 @@
-import { noncentralChiSquareTails } from '../distributions/noncentral-chi-square';
+import { expectClose } from '../../testing/expect-close';
+import { readFixture } from '../../testing/reference-fixtures';
 import { cohensWInterval } from './cohens-w-interval';
 import { cohensW, effectSizeWord } from './cohens-w';
 import { noncentralityInterval } from './noncentrality-interval';
 
 describe("Cohen's w", () => {
-  it('is √(X²/n) with the conventional words (Cohen 1988: .1 small, .3 medium, .5 large)', () => {
+  // Cohen, Statistical Power Analysis for the Behavioral Sciences, 2nd ed. (1988), section 7.2.3 (from memory): .1 small, .3 medium, .5 large.
+  it('is √(X²/n) with the conventional words', () => {
     expect(cohensW(9, 100)).toBeCloseTo(0.3, 15);
     expect(effectSizeWord(0.05)).toBe('negligible');
     expect(effectSizeWord(0.1)).toBe('small');
@@ -12,16 +14,20 @@ describe("Cohen's w", () => {
     expect(effectSizeWord(0.5)).toBe('large');
   });
 
-  it('has an interval whose limits invert the noncentral distribution (Steiger & Fouladi 1997)', () => {
-    const statistic = 13.593;
-    const df = 3;
-    const { low, high } = noncentralityInterval(statistic, df, 0.95);
-    expect(noncentralChiSquareTails(statistic, df, low).upper).toBeCloseTo(0.025, 9);
-    expect(noncentralChiSquareTails(statistic, df, high).lower).toBeCloseTo(0.025, 9);
-    const w = cohensWInterval(statistic, df, 156, 0.95);
-    expect(w.low).toBeLessThan(cohensW(statistic, 156));
-    expect(w.high).toBeGreaterThan(cohensW(statistic, 156));
-    expect(w.level).toBe(0.95);
+  it('has an interval whose limits invert the noncentral distribution (Steiger & Fouladi 1997), as SciPy and mpmath find them', () => {
+    // Limits solved with scipy.optimize.brentq on scipy.stats.ncx2 and polished in mpmath (tools/fixtures/engine-reference.py);
+    // the engine's root finder stops at relative 1e-10 in λ.
+    const { cases } = readFixture('cohens-w-interval');
+    for (const row of cases.filter((item) => item.lambdaHigh > 0)) {
+      const at = `X² ${row.statistic}, df ${row.df}, level ${row.level}`;
+      const lambda = noncentralityInterval(row.statistic, row.df, row.level);
+      expectClose(lambda.low, row.lambdaLow, { relative: 1e-9, absolute: 1e-12 }, `λ low, ${at}`);
+      expectClose(lambda.high, row.lambdaHigh, { relative: 1e-9 }, `λ high, ${at}`);
+      const w = cohensWInterval(row.statistic, row.df, row.n, row.level);
+      expectClose(w.low, row.wLow, { relative: 1e-9, absolute: 1e-12 }, `w low, ${at}`);
+      expectClose(w.high, row.wHigh, { relative: 1e-9 }, `w high, ${at}`);
+      expect(w.level).toBe(row.level);
+    }
   });
 
   it('puts the lower limit at 0 when the statistic is below the 97.5% point, and both at 0 below the 2.5% point', () => {

@@ -1,4 +1,6 @@
 import fc from 'fast-check';
+import { expectClose } from '../../testing/expect-close';
+import { readFixture, rowWhere } from '../../testing/reference-fixtures';
 import { jStat } from '../../testing/reference-libraries';
 import { EngineInputError } from '../spec/engine-input-error';
 import { exactMultinomialTest, ExactOrdering } from './index';
@@ -83,7 +85,7 @@ describe('exactMultinomialTest', () => {
             const reference = fullEnumeration(counts, shares, ordering);
             const result = exactMultinomialTest(counts, shares, { ordering, method: 'enumerate' });
             expect(result.method).toBe('enumerate');
-            expect(Math.abs(result.p - reference.p)).toBeLessThanOrEqual(1e-10 * Math.max(reference.p, 1e-3));
+            expectClose(result.p, reference.p, { relative: 1e-10, absolute: 1e-300 }, `counts ${counts}, shares ${shares}`);
             expect(result.massBound ?? 0).toBeLessThanOrEqual(1e-9 * reference.p);
           }),
           { numRuns: 150, seed: 31 },
@@ -137,6 +139,21 @@ describe('exactMultinomialTest', () => {
         }
       }
     });
+  });
+
+  it('matches brute-force enumeration in 40-digit mpmath for every ordering (relative 5e-12)', () => {
+    // tools/fixtures/engine-reference.py lists every outcome in mpmath with the same documented tie rule; measured
+    // agreement is 1e-12 or better.
+    for (const row of readFixture('exact-multinomial').cases) {
+      const total = row.weights.reduce((a, b) => a + b, 0);
+      const shares = row.weights.map((weight) => weight / total);
+      for (const ordering of ORDERINGS) {
+        const result = exactMultinomialTest(row.counts, shares, { ordering, method: 'enumerate' });
+        const at = `counts ${row.counts}, weights ${row.weights}, ${ordering}`;
+        expectClose(result.p, row[ordering].p, { relative: 5e-12 }, `p, ${at}`);
+        expectClose(result.logP, row[ordering].logP, { absolute: 5e-12 }, `ln p, ${at}`);
+      }
+    }
   });
 
   describe('properties', () => {
@@ -228,11 +245,11 @@ describe('exactMultinomialTest', () => {
     });
 
     it('handles a large sample-ratio check quickly and exactly', () => {
-      // 5,000,000 visitors split 50/50: 2,502,600 vs 2,497,400 (z ≈ 2.33, two-sided p ≈ 0.0201).
+      // 5,000,000 visitors split 50/50: 2,502,600 vs 2,497,400 (z ≈ 2.33); p from scipy.stats.binomtest and mpmath.
       const result = exactMultinomialTest([2_502_600, 2_497_400], [0.5, 0.5], { ordering: 'probability', method: 'auto' });
       expect(result.method).toBe('enumerate');
-      expect(result.p).toBeGreaterThan(0.019);
-      expect(result.p).toBeLessThan(0.021);
+      const reference = rowWhere(readFixture('binomial-test').cases, { x: 2_502_600, n: 5_000_000, share: 0.5 });
+      expectClose(result.p, reference.p, { relative: 1e-12 });
     });
   });
 

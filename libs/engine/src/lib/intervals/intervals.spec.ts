@@ -1,34 +1,13 @@
 import { expectClose } from '../../testing/expect-close';
-import { logFactorial } from '../special/log-gamma';
+import { readFixture } from '../../testing/reference-fixtures';
 import { goodmanIntervals, quesenberryHurstIntervals, scoreInterval, wilsonIntervals } from './score-intervals';
 import { shareIntervals } from './share-intervals';
 import { sisonGlazCoverage, sisonGlazIntervals } from './sison-glaz';
 import { chiSquareCriticalValue } from '../distributions/chi-square';
 
-/** Exact multinomial probability of the box |Xᵢ − nᵢ| <= c under p̂ = nᵢ/n, by enumerating every outcome. */
-function exactBoxProbability(counts: readonly number[], c: number): number {
-  const n = counts.reduce((a, b) => a + b, 0);
-  const logShares = counts.map((x) => Math.log(x / n));
-  const k = counts.length;
-  const y = new Array<number>(k).fill(0);
-  let total = 0;
-  const visit = (index: number, remaining: number) => {
-    if (index === k - 1) {
-      y[index] = remaining;
-      if (Math.abs(remaining - counts[index]) > c) return;
-      let logP = logFactorial(n);
-      for (let i = 0; i < k; i++) logP += (y[i] > 0 ? y[i] * logShares[i] : 0) - logFactorial(y[i]);
-      total += Math.exp(logP);
-      return;
-    }
-    for (let value = Math.max(0, counts[index] - c); value <= Math.min(remaining, counts[index] + c); value++) {
-      y[index] = value;
-      visit(index + 1, remaining - value);
-    }
-  };
-  visit(0, n);
-  return total;
-}
+// Computed in mpmath by tools/fixtures/engine-reference.py: ν(c) from Sison & Glaz's Edgeworth formula (moments summed
+// directly) and from enumerating every outcome in the box; the intervals; Wilson's closed form.
+const reference = readFixture('intervals');
 
 describe('Wilson score intervals', () => {
   it('reproduce Newcombe (1998, Statistics in Medicine 17:857, Table I, method 3; from memory)', () => {
@@ -43,6 +22,15 @@ describe('Wilson score intervals', () => {
       const interval = scoreInterval(x, n, z2);
       expect(interval.low).toBeCloseTo(low, 4);
       expect(interval.high).toBeCloseTo(high, 4);
+    }
+  });
+
+  it('match the closed form evaluated in mpmath (relative 1e-14)', () => {
+    const z2 = chiSquareCriticalValue(0.05, 1);
+    for (const row of reference.wilson) {
+      const interval = scoreInterval(row.x, row.n, z2);
+      expectClose(interval.low, row.low, { relative: 1e-14, absolute: 1e-16 }, `low, ${row.x} of ${row.n}`);
+      expectClose(interval.high, row.high, { relative: 1e-14 }, `high, ${row.x} of ${row.n}`);
     }
   });
 
@@ -77,23 +65,43 @@ describe('simultaneous score intervals', () => {
 });
 
 describe('Sison–Glaz intervals', () => {
-  it('approximate the exact box probability ν(c) closely (absolute 0.01)', () => {
-    const counts = [23, 31, 18, 28];
-    for (const c of [3, 6, 9, 12]) {
-      expectClose(sisonGlazCoverage(counts, c), exactBoxProbability(counts, c), { absolute: 0.01 }, `c ${c}`);
+  it("compute ν(c) by Sison & Glaz's Edgeworth formula as an independent implementation does (relative 1e-12 from c = 4)", () => {
+    // Below c = 4 the engine forms each truncated variance as m₂ − m₁² from factorial moments, which cancels when the
+    // truncation is narrow: measured 4e-11 at c = 1 for n = 100 and 1e-8 at c = 1 for n = 467. Those ν(c) are far
+    // below any level, so the chosen c is not affected.
+    for (const row of reference.coverage) {
+      const tolerance = row.c >= 4 ? 1e-12 : 2e-8;
+      expectClose(sisonGlazCoverage(row.counts, row.c), row.edgeworth, { relative: tolerance, absolute: 1e-300 }, `counts ${row.counts}, c ${row.c}`);
     }
   });
 
-  it('choose c with exact ν(c) < level <= ν(c + 1) (Sison & Glaz 1995, section 2)', () => {
-    const counts = [23, 31, 18, 28];
-    const n = 100;
-    const intervals = sisonGlazIntervals(counts, 0.95);
-    const c = Math.round((counts[0] / n - intervals[0].low) * n);
-    expect(exactBoxProbability(counts, c)).toBeLessThan(0.95);
-    expect(exactBoxProbability(counts, c + 1)).toBeGreaterThanOrEqual(0.95);
-    // every interval has the same width (2c + 2γ)/n before cutting to [0, 1]
-    const widths = intervals.map((interval) => interval.high - interval.low);
-    widths.forEach((width) => expectClose(width, widths[0], { absolute: 1e-12 }));
+  it("approximate the exact box probability ν(c) to the method's own error (6.3e-4 here)", () => {
+    // The Edgeworth approximation's largest error over c = 1 … 15 for these counts, measured against enumeration in mpmath.
+    const tolerance = reference.edgeworthError * (1 + 1e-9);
+    expect(reference.edgeworthError).toBeLessThan(7e-4);
+    for (const row of reference.coverage.filter((item) => item.exact !== undefined && item.c > 0)) {
+      expectClose(sisonGlazCoverage(row.counts, row.c), row.exact!, { absolute: tolerance }, `c ${row.c}`);
+    }
+    // c = 0 is the multinomial probability of the observed table itself: exact.
+    const zero = reference.coverage.find((item) => item.c === 0 && item.exact !== undefined)!;
+    expectClose(sisonGlazCoverage(zero.counts, 0), zero.exact!, { relative: 1e-12 });
+  });
+
+  it('choose c with ν(c) < level <= ν(c + 1) and widen by 2γ/n (Sison & Glaz 1995, section 2), as the reference does', () => {
+    for (const row of reference.sisonGlaz) {
+      const intervals = sisonGlazIntervals(row.counts, row.level);
+      intervals.forEach((interval, i) => {
+        const at = `counts ${row.counts}, level ${row.level}, category ${i}`;
+        // γ = (level − ν(c)) / (ν(c + 1) − ν(c)) magnifies ν's relative 1e-13 about tenfold.
+        expectClose(interval.low, row.intervals[i].low, { relative: 1e-11, absolute: 1e-15 }, `low, ${at}`);
+        expectClose(interval.high, row.intervals[i].high, { relative: 1e-11 }, `high, ${at}`);
+      });
+    }
+    // the exact box probabilities bracket the level at the chosen c for [23, 31, 18, 28] (c = 10: 0.94498 < 0.95 <= 0.97026)
+    const chosen = reference.sisonGlaz.find((row) => row.level === 0.95 && row.counts.join() === '23,31,18,28')!;
+    const exactAt = (c: number) => reference.coverage.find((item) => item.c === c && item.exact !== undefined)!.exact!;
+    expect(exactAt(chosen.c)).toBeLessThan(0.95);
+    expect(exactAt(chosen.c + 1)).toBeGreaterThanOrEqual(0.95);
   });
 
   it('are narrower than Goodman intervals with many categories, and stay in [0, 1]', () => {

@@ -1,12 +1,18 @@
 import fc from 'fast-check';
 import { expectClose } from '../../testing/expect-close';
+import { readFixture } from '../../testing/reference-fixtures';
 import { jStat } from '../../testing/reference-libraries';
 import { EngineInputError } from '../spec/engine-input-error';
 import { power, sampleSize } from './power';
 
+// P(χ²(df, n w²) > c) from the mpmath mixture, confirmed with scipy.stats.ncx2; sample sizes solved in mpmath
+// from scipy.optimize.brentq (tools/fixtures/engine-reference.py).
+const reference = readFixture('power');
+
 describe('power', () => {
   it('matches the df = 1 normal identity: power = Φ(√λ − z) + Φ(−√λ − z)', () => {
-    // w = 0.3, n = 100: λ = 9, z = 1.959964; Cohen (1988) Table 7.3.15 lists power .85 (from memory).
+    // w = 0.3, n = 100: λ = 9, z = 1.959964; Cohen, Statistical Power Analysis for the Behavioral Sciences, 2nd ed.
+    // (1988), Table 7.3.15 lists power .85 (from memory).
     const result = power({ w: 0.3, df: 1, n: 100 });
     const z = jStat.normal.inv(0.975, 0, 1);
     const reference = jStat.normal.cdf(3 - z, 0, 1) + jStat.normal.cdf(-3 - z, 0, 1);
@@ -14,6 +20,16 @@ describe('power', () => {
     expect(result.power).toBeCloseTo(0.85, 2);
     expect(result.ncp).toBeCloseTo(9, 12);
     expect(result.criticalValue).toBeCloseTo(3.841459, 6);
+  });
+
+  it('matches SciPy and mpmath over w, df, n and alpha (relative 1e-13)', () => {
+    for (const row of reference.power) {
+      const result = power({ w: row.w, df: row.df, n: row.n, alpha: row.alpha });
+      const at = `w ${row.w}, df ${row.df}, n ${row.n}, alpha ${row.alpha}`;
+      expectClose(result.power, row.power, { relative: 1e-13 }, `power, ${at}`);
+      expectClose(result.criticalValue, row.criticalValue, { relative: 1e-14 }, `critical value, ${at}`);
+      expectClose(result.ncp, row.ncp, { relative: 2 * Number.EPSILON }, `λ, ${at}`);
+    }
   });
 
   it('rises with n and with w (property)', () => {
@@ -38,7 +54,8 @@ describe('power', () => {
 
 describe('sampleSize', () => {
   it('reproduces Cohen (1988) Table 7.4.6: λ = 7.85 and n = 785 for w = .10, df = 1, power .80, α = .05', () => {
-    // From memory: Cohen's table gives n = 785 for w = .10 (u = 1, α = .05, power .80) and λ = 7.85.
+    // Cohen, Statistical Power Analysis for the Behavioral Sciences, 2nd ed. (1988), Table 7.4.6 (from memory):
+    // n = 785 for w = .10 (u = 1, α = .05, power .80) and λ = 7.85.
     const result = sampleSize({ w: 0.1, df: 1, power: 0.8 });
     expect(result.n).toBe(785);
     expect(result.nContinuous * 0.01).toBeCloseTo(7.85, 2);
@@ -54,6 +71,16 @@ describe('sampleSize', () => {
     }
     expectClose(result.nContinuous, low / 0.01, { relative: 1e-9 });
     expect(result.power).toBeGreaterThanOrEqual(0.8);
+  });
+
+  it('matches SciPy and mpmath: the continuous n to relative 1e-12, the whole n exactly', () => {
+    for (const row of reference.sampleSize) {
+      const result = sampleSize({ w: row.w, df: row.df, power: row.power, alpha: row.alpha });
+      const at = `w ${row.w}, df ${row.df}, power ${row.power}, alpha ${row.alpha}`;
+      expectClose(result.nContinuous, row.nContinuous, { relative: 1e-12 }, `n continuous, ${at}`);
+      expect(result.n).toBe(row.n);
+      expectClose(result.power, row.powerAtN, { relative: 1e-13 }, `power at n, ${at}`);
+    }
   });
 
   it('returns the smallest whole n that reaches the power (property)', () => {

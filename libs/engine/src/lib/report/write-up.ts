@@ -1,6 +1,6 @@
 /**
  * The written report: methods and results sentences, a Markdown table of the categories, the
- * cautions every report carries (DESIGN.md, "Cautions"), and the whole as one Markdown document.
+ * cautions every report carries, and the whole as one Markdown document.
  */
 import type { AnalysisResult, CategoryRow, MainTest, Report } from '../result/analysis-result';
 import { formatCount, formatPValue, formatPercent, formatShare, formatStatistic, groupDigits } from './format-numbers';

@@ -2,22 +2,28 @@ import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import type { AnalysisRecord, AnalysisSummary, CreateAnalysisRequest, Page, RerunAnalysisResponse } from '@tallyfit/contracts';
 import type { AnalysisSpec } from '@tallyfit/engine';
-import { map, type Observable } from 'rxjs';
+import { map, of, tap, type Observable } from 'rxjs';
 import { pageHandlesErrors } from '../notify/page-handles-errors';
 
 /** Analyses over the API: run and store one, list one's own, read one. */
 @Injectable({ providedIn: 'root' })
 export class AnalysesApi {
   private readonly http = inject(HttpClient);
+  /** What a run or re-run just answered, so the result page opening it next needs no second request. */
+  private readonly justStored = new Map<number, AnalysisRecord>();
 
   /** Runs and stores an analysis; the run step shows a failure itself. */
   create(request: CreateAnalysisRequest): Observable<AnalysisRecord> {
-    return this.http.post<AnalysisRecord>('/api/v1/analyses', request, { context: pageHandlesErrors() });
+    return this.http
+      .post<AnalysisRecord>('/api/v1/analyses', request, { context: pageHandlesErrors() })
+      .pipe(tap((analysis) => this.justStored.set(analysis.id, analysis)));
   }
 
   /** Runs an analysis again as a new version (on today's engine), with its stored spec or a changed one. */
   rerun(id: number, spec?: AnalysisSpec): Observable<RerunAnalysisResponse> {
-    return this.http.post<RerunAnalysisResponse>(`/api/v1/analyses/${id}/rerun`, spec ? { spec } : {}, { context: pageHandlesErrors() });
+    return this.http
+      .post<RerunAnalysisResponse>(`/api/v1/analyses/${id}/rerun`, spec ? { spec } : {}, { context: pageHandlesErrors() })
+      .pipe(tap(({ analysis }) => this.justStored.set(analysis.id, analysis)));
   }
 
   /** The newest page (up to 100) of the signed-in person's own analyses. */
@@ -27,7 +33,13 @@ export class AnalysesApi {
       .pipe(map((page) => page.items));
   }
 
+  /** One analysis: the one just stored if it is that, else from the API (a reload always asks the API). */
   get(id: number): Observable<AnalysisRecord> {
+    const stored = this.justStored.get(id);
+    if (stored) {
+      this.justStored.delete(id);
+      return of(stored);
+    }
     return this.http.get<AnalysisRecord>(`/api/v1/analyses/${id}`, { context: pageHandlesErrors() });
   }
 }

@@ -1,6 +1,6 @@
 import { HttpClient, HttpEventType, type HttpEvent } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
-import type { AnalysisRecord, CategoryCounts, CountSelection, DatasetAnalysisRequest, DatasetRecord, DatasetSummary } from '@tallyfit/contracts';
+import type { CategoryCounts, CountSelection, DatasetRecord, DatasetSummary } from '@tallyfit/contracts';
 import { filter, map, type Observable } from 'rxjs';
 import { pageHandlesErrors } from '../notify/page-handles-errors';
 
@@ -47,10 +47,5 @@ export class DatasetsApi {
   /** Chooses the column(s) that hold the categories; the API keeps the choice and answers with the counts. */
   countCategories(id: number, selection: CountSelection): Observable<CategoryCounts> {
     return this.http.post<CategoryCounts>(`/api/v1/datasets/${id}/columns`, selection, { context: pageHandlesErrors() });
-  }
-
-  /** Runs an analysis on the dataset's counts, so the analysis records which dataset it came from. */
-  runAnalysis(id: number, request: DatasetAnalysisRequest): Observable<AnalysisRecord> {
-    return this.http.post<AnalysisRecord>(`/api/v1/datasets/${id}/analyses`, request, { context: pageHandlesErrors() });
   }
 }

@@ -1,5 +1,5 @@
 import type { Routes } from '@angular/router';
-import { roleGuard } from '../../core/auth/role.guard';
+import { capabilityGuard } from '../../core/auth/capability.guard';
 
 /** The admin area, loaded only when an admin (or, for the audit trail, a lead) opens it. */
 export const adminRoutes: Routes = [
@@ -7,19 +7,19 @@ export const adminRoutes: Routes = [
   {
     path: 'people',
     title: 'People · Tallyfit',
-    canMatch: [roleGuard('admin')],
+    canMatch: [capabilityGuard('people.manage')],
     loadComponent: () => import('./people/people-page').then((m) => m.PeoplePage),
   },
   {
     path: 'audit',
     title: 'Audit trail · Tallyfit',
-    canMatch: [roleGuard('admin', 'lead')],
+    canMatch: [capabilityGuard('audit.read')],
     loadComponent: () => import('./audit/audit-page').then((m) => m.AuditPage),
   },
   {
     path: 'outbox',
     title: 'Mail outbox · Tallyfit',
-    canMatch: [roleGuard('admin')],
+    canMatch: [capabilityGuard('outbox.read')],
     loadComponent: () => import('./outbox/outbox-page').then((m) => m.OutboxPage),
   },
 ];

@@ -15,7 +15,7 @@ import { apiErrorMessage } from '../../core/api/api-error-message';
 import { ReportsApi, type ReportFormat } from '../../core/api/reports-api';
 import { ReviewsApi } from '../../core/api/reviews-api';
 import { AuthSession } from '../../core/auth/auth-session';
-import { can } from '../../core/auth/permissions';
+import { can } from '@tallyfit/contracts';
 import { saveFile } from '../../core/files/save-file';
 import { LOADING, toLoadState } from '../../core/load/load-state';
 import { AnalysisStatusChip } from '../../shared/analysis-status/analysis-status-chip';
@@ -89,9 +89,9 @@ export class AnalysisPage {
     const analysis = this.analysis();
     return analysis ? testRows(analysis.result, analysis.spec.williams ?? false) : [];
   });
-  protected readonly canRun = computed(() => can(this.user()?.role, 'runAnalysis'));
+  protected readonly canRun = computed(() => can(this.user()?.role, 'analyses.run'));
   /** The API lets everyone but viewers e-mail an analysis they can read. */
-  protected readonly canShare = computed(() => ['admin', 'lead', 'analyst'].includes(this.user()?.role ?? ''));
+  protected readonly canShare = computed(() => can(this.user()?.role, 'analyses.share'));
   protected readonly canSubmit = computed(() => {
     const analysis = this.analysis();
     return !!analysis && this.canRun() && analysis.isLatest && (analysis.status === 'draft' || analysis.status === 'returned');

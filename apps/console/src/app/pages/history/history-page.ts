@@ -22,7 +22,7 @@ import { HistoryApi } from '../../core/api/history-api';
 import { PeopleApi } from '../../core/api/people-api';
 import { StudiesApi } from '../../core/api/studies-api';
 import { AuthSession } from '../../core/auth/auth-session';
-import { can } from '../../core/auth/permissions';
+import { can } from '@tallyfit/contracts';
 import { failureMessage, LOADING, loadedValue, toLoadState } from '../../core/load/load-state';
 import { AnalysesTable, type RowAction } from '../../shared/analyses-table/analyses-table';
 import { ANALYSIS_STATUS_WORDS, TEST_WORDS } from '../../shared/analysis-status/analysis-status-words';
@@ -104,7 +104,7 @@ export class HistoryPage {
     { equal: (a, b) => JSON.stringify(a) === JSON.stringify(b) },
   );
   protected readonly filterCount = computed(() => activeFilterCount(this.view()));
-  protected readonly canReview = computed(() => can(this.role(), 'review'));
+  protected readonly canReview = computed(() => can(this.role(), 'analyses.review'));
   protected readonly reloads = signal(0);
 
   private readonly state = toSignal(

@@ -90,7 +90,7 @@ export function urlFromView(view: HistoryView): Record<string, string | null> {
 /** The API query for a view. A day range covers whole days in the person's own time zone, as dates are shown. */
 export function apiQueryFromView(view: HistoryView): ListAnalysesQuery {
   const query: ListAnalysesQuery = { page: view.page, pageSize: view.pageSize, sort: view.sort, order: view.order };
-  if (view.studyId !== null) query.studyId = view.studyId;
+  if (view.studyId !== null) query.studyId = String(view.studyId);
   if (view.author !== null) query.author = view.author;
   if (view.test !== null) query.test = view.test;
   if (view.status !== null) query.status = view.status;

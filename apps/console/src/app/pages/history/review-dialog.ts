@@ -14,7 +14,7 @@ import type { Observable } from 'rxjs';
 import { apiErrorMessage } from '../../core/api/api-error-message';
 import { ReviewsApi } from '../../core/api/reviews-api';
 import { AuthSession } from '../../core/auth/auth-session';
-import { can } from '../../core/auth/permissions';
+import { can } from '@tallyfit/contracts';
 import { formatP } from '../../core/format/p-value';
 import { AnalysisStatusChip } from '../../shared/analysis-status/analysis-status-chip';
 import { testWords } from '../../shared/analysis-status/analysis-status-words';
@@ -54,7 +54,7 @@ export class ReviewDialog {
 
   protected readonly analysis = inject<AnalysisSummary>(MAT_DIALOG_DATA);
   protected readonly status = signal<AnalysisStatus>(this.analysis.status);
-  protected readonly canDecide = computed(() => can(this.role(), 'review') && this.status() === 'in_review');
+  protected readonly canDecide = computed(() => can(this.role(), 'analyses.review') && this.status() === 'in_review');
   protected readonly note = new FormControl('', { nonNullable: true, validators: Validators.maxLength(5000) });
   protected readonly busy = signal(false);
   protected readonly error = signal<string | null>(null);

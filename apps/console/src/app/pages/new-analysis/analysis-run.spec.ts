@@ -1,4 +1,4 @@
-import { analysisRequest, datasetAnalysisRequest, suggestedTitle } from './analysis-run';
+import { analysisRequest, suggestedTitle } from './analysis-run';
 import type { DataChoice } from './data-step/data-choice';
 
 const typed: DataChoice = { source: 'type', observed: { labels: ['a', 'b'], counts: [3, 4] } };
@@ -21,19 +21,27 @@ describe('analysisRequest', () => {
   });
 });
 
-describe('datasetAnalysisRequest', () => {
-  it('sends the column choice instead of the counts, so the API records the dataset', () => {
-    expect(datasetAnalysisRequest('Defects', uploaded, { kind: 'ratio', values: [2, 1] }, { alpha: 0.05 })).toEqual({
+describe('analysisRequest on an uploaded dataset', () => {
+  it('sends the dataset and its column choice instead of the counts, so the API records the dataset', () => {
+    expect(analysisRequest('Defects', 4, uploaded, { kind: 'ratio', values: [2, 1] }, { alpha: 0.05 })).toEqual({
       title: 'Defects',
+      datasetId: 8,
       selection: { shape: 'raw', column: 'defect' },
       spec: { hypothesis: { kind: 'ratio', values: [2, 1] }, alpha: 0.05 },
     });
-    expect(datasetAnalysisRequest('Typed', typed, { kind: 'equal' }, {})).toBeNull();
+  });
+
+  it('sends the counts when a dataset has no column choice', () => {
+    const { selection: _none, ...withoutChoice } = uploaded;
+    expect(analysisRequest('Defects', null, withoutChoice, { kind: 'equal' }, {})).toEqual({
+      title: 'Defects',
+      spec: { observed: uploaded.observed, hypothesis: { kind: 'equal' } },
+    });
   });
 
   it('adds the segment column and the adjustment when a split was chosen', () => {
     const split = { ...uploaded, segments: { column: 'line', adjust: 'benjamini-hochberg' as const } };
-    expect(datasetAnalysisRequest('Defects by line', split, { kind: 'equal' }, {})).toMatchObject({ segmentColumn: 'line', segmentAdjust: 'benjamini-hochberg' });
+    expect(analysisRequest('Defects by line', null, split, { kind: 'equal' }, {})).toMatchObject({ segmentColumn: 'line', segmentAdjust: 'benjamini-hochberg' });
   });
 });
 

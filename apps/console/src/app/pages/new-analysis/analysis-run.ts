@@ -1,9 +1,13 @@
-import type { CreateAnalysisRequest, DatasetAnalysisRequest } from '@tallyfit/contracts';
+import type { CreateAnalysisRequest } from '@tallyfit/contracts';
 import type { Hypothesis } from '@tallyfit/engine';
 import type { DataChoice } from './data-step/data-choice';
 import type { AnalysisOptions } from './options-step/analysis-options';
 
-/** The request the run step sends: the three steps' answers put together. */
+/**
+ * The request the run step sends: the three steps' answers put together. Counts from an uploaded
+ * dataset go as the dataset and its column choice, so the API counts them itself and the analysis
+ * records where its counts came from; typed or pasted counts go in the spec.
+ */
 export function analysisRequest(
   title: string,
   studyId: number | null,
@@ -11,29 +15,20 @@ export function analysisRequest(
   hypothesis: Hypothesis,
   options: AnalysisOptions,
 ): CreateAnalysisRequest {
-  const request: CreateAnalysisRequest = {
+  if (data.datasetId !== undefined && data.selection) {
+    return {
+      title: title.trim(),
+      datasetId: data.datasetId,
+      selection: data.selection,
+      spec: { hypothesis, ...options },
+      ...(data.segments ? { segmentColumn: data.segments.column, segmentAdjust: data.segments.adjust } : {}),
+    };
+  }
+  return {
     title: title.trim(),
     spec: { observed: data.observed, hypothesis, ...options },
+    ...(studyId !== null ? { studyId } : {}),
   };
-  if (studyId !== null) request.studyId = studyId;
-  if (data.datasetName) request.notes = `Counts from the uploaded file “${data.datasetName}”.`;
-  return request;
-}
-
-/** The request for a run on an uploaded dataset: the API fills the observed counts from the chosen column(s). */
-export function datasetAnalysisRequest(
-  title: string,
-  data: DataChoice,
-  hypothesis: Hypothesis,
-  options: AnalysisOptions,
-): DatasetAnalysisRequest | null {
-  if (!data.selection) return null;
-  const request: DatasetAnalysisRequest = { title: title.trim(), selection: data.selection, spec: { hypothesis, ...options } };
-  if (data.segments) {
-    request.segmentColumn = data.segments.column;
-    request.segmentAdjust = data.segments.adjust;
-  }
-  return request;
 }
 
 /** A title to start from, so the person only has to adjust it. */

@@ -16,10 +16,10 @@ import type { Hypothesis } from '@tallyfit/engine';
 import { catchError, interval, map, of, type Subscription } from 'rxjs';
 import { AnalysesApi } from '../../core/api/analyses-api';
 import { apiErrorMessage } from '../../core/api/api-error-message';
-import { DatasetsApi } from '../../core/api/datasets-api';
 import { StudiesApi } from '../../core/api/studies-api';
 import { AuthSession } from '../../core/auth/auth-session';
-import { analysisRequest, datasetAnalysisRequest, suggestedTitle } from './analysis-run';
+import { runsInStudy } from '../studies/study-access';
+import { analysisRequest, suggestedTitle } from './analysis-run';
 import { totalOf, type DataChoice } from './data-step/data-choice';
 import { DataStep } from './data-step/data-step';
 import { HypothesisStep } from './hypothesis-step/hypothesis-step';
@@ -51,7 +51,6 @@ type RunState = { state: 'idle' } | { state: 'running'; seconds: number } | { st
 })
 export class NewAnalysisPage {
   private readonly analyses = inject(AnalysesApi);
-  private readonly datasets = inject(DatasetsApi);
   private readonly router = inject(Router);
   private readonly user = inject(AuthSession).user;
   private readonly destroyRef = inject(DestroyRef);
@@ -75,7 +74,7 @@ export class NewAnalysisPage {
   );
   protected readonly studies = computed(() =>
     this.studyList().studies.filter(
-      (study) => !study.archived && (this.user()?.role === 'admin' || study.myStudyRole === 'owner' || study.myStudyRole === 'contributor'),
+      (study) => runsInStudy(this.user()?.role, study),
     ),
   );
   protected readonly studiesFailed = computed(() => this.studyList().failed);
@@ -119,11 +118,7 @@ export class NewAnalysisPage {
     const hypothesis = this.hypothesis();
     const options = this.options();
     if (!data || !hypothesis || !options || this.title().trim() === '') return;
-    const fromDataset = data.datasetId !== undefined ? datasetAnalysisRequest(this.title(), data, hypothesis, options) : null;
-    const run$ =
-      data.datasetId !== undefined && fromDataset
-        ? this.datasets.runAnalysis(data.datasetId, fromDataset)
-        : this.analyses.create(analysisRequest(this.title(), this.studyId(), data, hypothesis, options));
+    const run$ = this.analyses.create(analysisRequest(this.title(), this.studyId(), data, hypothesis, options));
     this.run.set({ state: 'running', seconds: 0 });
     const clock = interval(1000).subscribe((seconds) => this.run.set({ state: 'running', seconds: seconds + 1 }));
     this.running = run$.subscribe({

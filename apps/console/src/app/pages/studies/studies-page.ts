@@ -19,7 +19,7 @@ import type { Study, StudyDetail } from '@tallyfit/contracts';
 import { combineLatest, switchMap } from 'rxjs';
 import { StudiesApi } from '../../core/api/studies-api';
 import { AuthSession } from '../../core/auth/auth-session';
-import { can } from '../../core/auth/permissions';
+import { can } from '@tallyfit/contracts';
 import { LOADING, toLoadState } from '../../core/load/load-state';
 import { managesStudy } from './study-access';
 import { StudyFormDialog } from './study-form-dialog';
@@ -53,7 +53,7 @@ export class StudiesPage {
   private readonly announcer = inject(LiveAnnouncer);
   protected readonly role = inject(AuthSession).role;
 
-  protected readonly canCreate = computed(() => can(this.role(), 'createStudy'));
+  protected readonly canCreate = computed(() => can(this.role(), 'studies.create'));
   protected readonly includeArchived = signal(false);
   private readonly reloads = signal(0);
   protected readonly filterText = signal('');

@@ -1,12 +1,11 @@
-import type { Role, Study } from '@tallyfit/contracts';
+import { can, type Role, type Study } from '@tallyfit/contracts';
 
-/** Admins and the study's owners rename, archive and manage members (the API's own rule). */
+/** Whether the person may rename, archive and manage the members of this study (the capability table's rule). */
 export function managesStudy(role: Role | null | undefined, study: Pick<Study, 'myStudyRole'>): boolean {
-  return role === 'admin' || (role === 'analyst' && study.myStudyRole === 'owner');
+  return can(role, 'studies.manage', study.myStudyRole);
 }
 
-/** Admins, owners and contributors add analyses and datasets to a study that is not archived. */
+/** Whether the person may add analyses and datasets to this study; an archived study takes no new work. */
 export function runsInStudy(role: Role | null | undefined, study: Pick<Study, 'myStudyRole' | 'archived'>): boolean {
-  if (study.archived) return false;
-  return role === 'admin' || (role === 'analyst' && (study.myStudyRole === 'owner' || study.myStudyRole === 'contributor'));
+  return !study.archived && can(role, 'analyses.run', study.myStudyRole);
 }

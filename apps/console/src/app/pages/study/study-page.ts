@@ -75,7 +75,7 @@ export class StudyPage {
   protected readonly analyses = toSignal(
     combineLatest([toObservable(this.id), toObservable(this.analysesPage)]).pipe(
       switchMap(([studyId, page]) =>
-        toLoadState(this.historyApi.list({ studyId, page, pageSize: ANALYSES_PAGE_SIZE, sort: 'date', order: 'desc' })),
+        toLoadState(this.historyApi.list({ studyId: String(studyId), page, pageSize: ANALYSES_PAGE_SIZE, sort: 'date', order: 'desc' })),
       ),
     ),
     { initialValue: LOADING },

@@ -17,7 +17,7 @@ import { combineLatest, filter, switchMap } from 'rxjs';
 import { apiErrorMessage } from '../../core/api/api-error-message';
 import { TokensApi } from '../../core/api/tokens-api';
 import { AuthSession } from '../../core/auth/auth-session';
-import { can } from '../../core/auth/permissions';
+import { can } from '@tallyfit/contracts';
 import { failureMessage, LOADING, loadedValue, toLoadState } from '../../core/load/load-state';
 import { ConfirmDialog, type ConfirmData } from '../../shared/confirm-dialog/confirm-dialog';
 
@@ -49,7 +49,7 @@ export class TokensPage {
   private readonly announcer = inject(LiveAnnouncer);
   private readonly session = inject(AuthSession);
 
-  protected readonly isAdmin = computed(() => can(this.session.role(), 'administer'));
+  protected readonly isAdmin = computed(() => can(this.session.role(), 'people.manage'));
   protected readonly everyone = signal(false);
   private readonly reloads = signal(0);
   private readonly state = toSignal(

@@ -13,7 +13,7 @@ import { combineLatest, forkJoin, switchMap } from 'rxjs';
 import { apiErrorMessage } from '../../core/api/api-error-message';
 import { ReviewsApi } from '../../core/api/reviews-api';
 import { AuthSession } from '../../core/auth/auth-session';
-import { can } from '../../core/auth/permissions';
+import { can } from '@tallyfit/contracts';
 import { failureMessage, LOADING, loadedValue, toLoadState } from '../../core/load/load-state';
 import { threadEntries } from './thread-entries';
 
@@ -40,7 +40,7 @@ export class CommentsThread {
   readonly reloadKey = input(0);
 
   protected readonly maxLength = MAX_COMMENT_LENGTH;
-  protected readonly canComment = computed(() => can(this.role(), 'comment'));
+  protected readonly canComment = computed(() => can(this.role(), 'analyses.comment'));
   private readonly posted = signal<Comment[]>([]);
 
   private readonly state = toSignal(

@@ -1,6 +1,6 @@
 import type { Role } from '@tallyfit/contracts';
 
-/** Each role with what it may do, in a few words (DESIGN.md, "Users and roles"). */
+/** Each role with what it may do, in a few words (the capability table in libs/contracts says it exactly). */
 export const ROLE_WORDS: Record<Role, { name: string; can: string }> = {
   admin: { name: 'Admin', can: 'everything, plus people and tokens' },
   lead: { name: 'Lead', can: 'reads every study, reviews and signs off' },
