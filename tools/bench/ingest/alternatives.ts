@@ -28,7 +28,7 @@ export async function countWithCsvParse(path: string, column: string): Promise<n
 /** DuckDB's read_csv with a GROUP BY, limited to two threads as the product's machine has. */
 export async function countWithDuckDb(path: string, column: string): Promise<number> {
   // Loaded only here, so the other measurements do not carry DuckDB's native library in their memory.
-  // eslint-disable-next-line @typescript-eslint/no-require-imports -- a plain require resolves through NODE_PATH from the bundle
+  // A plain require resolves through NODE_PATH from the bundle.
   const { DuckDBInstance } = require('@duckdb/node-api') as typeof import('@duckdb/node-api');
   const instance = await DuckDBInstance.create(':memory:', { threads: '2' });
   const connection = await instance.connect();

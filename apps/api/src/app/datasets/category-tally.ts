@@ -28,6 +28,8 @@ export function countsTableTally(header: string[], selection: Extract<CountSelec
   const labelIndex = columnIndex(header, selection.labelColumn, 'labels');
   const countIndex = columnIndex(header, selection.countColumn, 'counts');
   if (labelIndex === countIndex) throw new DatasetFormatError('line 1', 'the label column and the count column must be different columns');
+  const countProblem = (text: string, label: string, message: string) =>
+    `the count "${text}" for "${label}" in column "${selection.countColumn}" ${message}; counts are whole numbers of 0 or more`;
   const firstSeen = new Map<string, string>();
   const labels: string[] = [];
   const texts: string[] = [];
@@ -43,6 +45,9 @@ export function countsTableTally(header: string[], selection: Extract<CountSelec
       }
       if (label === '') throw new DatasetFormatError(where(), `the label in column "${selection.labelColumn}" is empty`);
       if (text === '') throw new DatasetFormatError(where(), `the count for "${label}" in column "${selection.countColumn}" is empty`);
+      // A count wrong in itself is named at once, in file order; only an ambiguous one waits for the whole column.
+      const reading = readCount(text);
+      if (!reading.ok && reading.problem !== 'ambiguous') throw new DatasetFormatError(where(), countProblem(text, label, reading.message));
       const earlier = firstSeen.get(label);
       if (earlier !== undefined) {
         throw new DatasetFormatError(where(), `the label "${label}" appears a second time (first on ${earlier}); each category needs one row`);
@@ -61,10 +66,7 @@ export function countsTableTally(header: string[], selection: Extract<CountSelec
       const [problem] = reading.problems;
       if (problem) {
         const { index, message } = problem;
-        throw new DatasetFormatError(
-          places[index],
-          `the count "${texts[index]}" for "${labels[index]}" in column "${selection.countColumn}" ${message}; counts are whole numbers of 0 or more`,
-        );
+        throw new DatasetFormatError(places[index], countProblem(texts[index], labels[index], message));
       }
       const counts = reading.values as number[];
       return {

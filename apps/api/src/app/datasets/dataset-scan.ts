@@ -1,7 +1,7 @@
 import { open, stat } from 'node:fs/promises';
 import { availableParallelism } from 'node:os';
 import type { CategoryCounts, CountSelection, DatasetColumn, SegmentCounts } from '@tallyfit/contracts';
-import { DATASET_PREVIEW_ROWS } from '@tallyfit/contracts';
+import { DATASET_MAX_CATEGORIES, DATASET_MAX_SEGMENTS, DATASET_PREVIEW_ROWS } from '@tallyfit/contracts';
 import { columnIndex, countsTableTally, type CategoryTally } from './category-tally';
 import { isBlankCell, cellString } from './cell-text';
 import { columnSummary, MAX_OFFERED_COLUMNS, naturalOrder, offeredCounts } from './column-profile';
@@ -125,7 +125,15 @@ async function readTable(path: string, kind: FileKind, request: ReadRequest, opt
 
 /** The plan for the rows once the header is known; a table of counts is also read as text, row by row. */
 function planFor(names: string[], request: ReadRequest, separatorName: string, encoding: CountPlan['encoding']) {
-  const plan: CountPlan = { encoding, width: names.length, separatorName, profile: request.profile, previewRows: request.previewRows };
+  const plan: CountPlan = {
+    encoding,
+    width: names.length,
+    separatorName,
+    profile: request.profile,
+    previewRows: request.previewRows,
+    maxCategories: DATASET_MAX_CATEGORIES,
+    maxSegments: DATASET_MAX_SEGMENTS,
+  };
   let countsTable: CategoryTally | undefined;
   const selection = request.selection;
   if (selection?.shape === 'raw') {

@@ -48,7 +48,7 @@ export interface ScanRangeOutcome {
 const QUOTE = 0x22;
 const LF = 0x0a;
 const CR = 0x0d;
-const CHUNK_BYTES = 4 * 1024 * 1024;
+const CHUNK_BYTES = 1024 * 1024;
 /** A row longer than this is not a table row (a file with no line breaks, or a quote never closed). */
 const MAX_ROW_BYTES = 64 * 1024 * 1024;
 

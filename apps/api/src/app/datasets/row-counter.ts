@@ -1,4 +1,3 @@
-import { DATASET_MAX_CATEGORIES, DATASET_MAX_SEGMENTS } from '@tallyfit/contracts';
 import { cellString, isBlankCell, isCountCell, type TextEncoding } from './cell-text';
 import { FEW_DISTINCT_VALUES } from './column-profile';
 import { LineError, type RowFields } from './delimited-scanner';
@@ -19,6 +18,9 @@ export interface CountPlan {
   category?: { index: number; name: string };
   /** a second column splitting the counts into segments */
   segment?: { index: number; name: string };
+  /** the limits on different categories and segments (from contracts, passed in so the worker needs no schemas) */
+  maxCategories: number;
+  maxSegments: number;
 }
 
 /** One column's profile over the rows read: its values (while few) with counts, and what they look like. */
@@ -126,9 +128,9 @@ export class RowCounter {
   ) {
     this.watches = plan.profile ? Array.from({ length: plan.width }, () => new ColumnWatch(plan.encoding)) : [];
     if (plan.category) {
-      this.categories = new LabelIndex(plan.encoding, DATASET_MAX_CATEGORIES);
-      if (plan.segment) this.segments = new LabelIndex(plan.encoding, DATASET_MAX_SEGMENTS);
-      else this.counts.push(new Float64Array(DATASET_MAX_CATEGORIES));
+      this.categories = new LabelIndex(plan.encoding, plan.maxCategories);
+      if (plan.segment) this.segments = new LabelIndex(plan.encoding, plan.maxSegments);
+      else this.counts.push(new Float64Array(plan.maxCategories));
     }
   }
 
@@ -164,7 +166,7 @@ export class RowCounter {
     if (label === TOO_MANY) {
       throw new LineError(
         line,
-        `column "${plan.category!.name}" has more than ${DATASET_MAX_CATEGORIES} different values, too many for categories; pick the column that holds the category of each row`,
+        `column "${plan.category!.name}" has more than ${plan.maxCategories} different values, too many for categories; pick the column that holds the category of each row`,
       );
     }
     if (label === BLANK) {
@@ -180,14 +182,14 @@ export class RowCounter {
     if (segment === TOO_MANY) {
       throw new LineError(
         line,
-        `column "${plan.segment!.name}" has more than ${DATASET_MAX_SEGMENTS} different values, too many for segments; pick a column with fewer (a browser, a country, a line)`,
+        `column "${plan.segment!.name}" has more than ${plan.maxSegments} different values, too many for segments; pick a column with fewer (a browser, a country, a line)`,
       );
     }
     if (segment === BLANK) {
       this.skippedEmptySegment++;
       return;
     }
-    if (segment === this.counts.length) this.counts.push(new Float64Array(DATASET_MAX_CATEGORIES));
+    if (segment === this.counts.length) this.counts.push(new Float64Array(plan.maxCategories));
     this.counts[segment][label]++;
   }
 

@@ -1,4 +1,3 @@
-import { DATASET_MAX_CATEGORIES, DATASET_MAX_SEGMENTS } from '@tallyfit/contracts';
 import { FEW_DISTINCT_VALUES } from './column-profile';
 import { LineError } from './delimited-scanner';
 import type { ColumnPart, CountPlan, RowsPart, TallyPart } from './row-counter';
@@ -72,17 +71,17 @@ function joinLabels(a: string[], aLines: number[], b: string[], bLines: number[]
 
 function mergeTally(a: TallyPart, b: TallyPart, plan: CountPlan): TallyPart {
   const categories = joinLabels(a.labels, a.firstLines, b.labels, b.firstLines);
-  if (categories.labels.length > DATASET_MAX_CATEGORIES) {
+  if (categories.labels.length > plan.maxCategories) {
     throw new LineError(
-      categories.lines[DATASET_MAX_CATEGORIES],
-      `column "${plan.category?.name}" has more than ${DATASET_MAX_CATEGORIES} different values, too many for categories; pick the column that holds the category of each row`,
+      categories.lines[plan.maxCategories],
+      `column "${plan.category?.name}" has more than ${plan.maxCategories} different values, too many for categories; pick the column that holds the category of each row`,
     );
   }
   const segments = a.segments && b.segments ? joinLabels(a.segments, a.segmentFirstLines, b.segments, b.segmentFirstLines) : null;
-  if (segments && segments.labels.length > DATASET_MAX_SEGMENTS) {
+  if (segments && segments.labels.length > plan.maxSegments) {
     throw new LineError(
-      segments.lines[DATASET_MAX_SEGMENTS],
-      `column "${plan.segment?.name}" has more than ${DATASET_MAX_SEGMENTS} different values, too many for segments; pick a column with fewer (a browser, a country, a line)`,
+      segments.lines[plan.maxSegments],
+      `column "${plan.segment?.name}" has more than ${plan.maxSegments} different values, too many for segments; pick a column with fewer (a browser, a country, a line)`,
     );
   }
   const width = categories.labels.length;
