@@ -57,10 +57,11 @@ export class DatasetUpload {
   protected readonly counts = signal<CategoryCounts | null>(null);
   private sending: Subscription | null = null;
   private segments: SegmentChoice | null = null;
-  /** the stored dataset, while one is shown */
-  protected readonly storedDataset = computed(() => {
+  /** Segments are offered once raw rows are counted: the dataset's columns and the category column. */
+  protected readonly segmentsOffer = computed(() => {
     const state = this.state();
-    return state.step === 'stored' ? state.dataset : null;
+    const selection = this.counts()?.selection;
+    return state.step === 'stored' && selection?.shape === 'raw' ? { columns: state.dataset.columnNames, categoryColumn: selection.column } : null;
   });
 
   constructor() {
