@@ -3,11 +3,14 @@
  * - Exact test cases (tools/bench/engine/exact-cases.ts): time per run, method, p, outcomes visited,
  *   and Monte Carlo draws per second.
  * - `analyze` cases (tools/bench/engine/analyze-cases.ts): calls per second.
+ * - Bounded-work cases (tools/bench/engine/bounded-work-cases.ts): huge n and tiny shares beside
+ *   the method they replaced or an ordinary analysis.
  * Each case is run once to warm up, then repeated until at least MIN_SECONDS have passed (or
  * once more, for cases slower than that); the table shows the mean time per run.
  */
 import { performance } from 'node:perf_hooks';
 import { analyzeCases, runAnalyzeCase } from './engine/analyze-cases';
+import { boundedWorkCases } from './engine/bounded-work-cases';
 import { exactCases } from './engine/exact-cases';
 
 const MIN_SECONDS = 1;
@@ -73,6 +76,10 @@ function main(): void {
   });
   console.log('## analyze\n');
   console.log(table(['case', 'time per call', 'calls per second'], analyzeRows));
+  console.log('');
+  const boundedRows = boundedWorkCases.map((benchCase) => [benchCase.name, formatSeconds(time(benchCase.run).secondsPerRun)]);
+  console.log('## Work bounded by the input (huge n, tiny shares)\n');
+  console.log(table(['case', 'time per call'], boundedRows));
 }
 
 main();

@@ -14,12 +14,12 @@ async function main(): Promise<void> {
   const logger = pino({ level: config.logLevel });
   const db = openDatabase(config);
   await migrateToLatest(db);
-  const signIns = config.seedDemo ? await seedDemo(db, config.dataDir, config.demoPassword) : [];
+  const signIns = config.seedDemo ? await seedDemo(db, config.dataDir, config.demoPassword, config.publicUrl) : [];
   // The worker is built beside main.js (see additionalEntryPoints in apps/api/project.json).
   const engine = createEnginePool({ workerFile: join(__dirname, 'engine-worker.js'), timeLimitMs: config.engineTimeLimitMs });
   // Without SMTP_URL a local SMTP stand-in receives the mail; admins read it in the outbox.
   const mail = await startMailService({ smtpUrl: config.smtpUrl, from: config.mailFrom });
-  const { app } = createApp({ config, db, engine, mail, logger });
+  const { app, watches } = createApp({ config, db, engine, mail, logger });
 
   const server = app.listen(config.port, config.host, () => {
     const address = server.address();
@@ -37,7 +37,7 @@ async function main(): Promise<void> {
   });
 
   const shutdown = () => {
-    server.close(() => void Promise.all([engine.close(), closeScanPools(), mail.stop(), db.destroy()]).then(() => process.exit(0)));
+    server.close(() => void watches.stop().then(() => Promise.all([engine.close(), closeScanPools(), mail.stop(), db.destroy()])).then(() => process.exit(0)));
   };
   process.on('SIGINT', shutdown);
   process.on('SIGTERM', shutdown);

@@ -14,3 +14,4 @@ export * from './lib/datasets';
 export * from './lib/shares';
 export * from './lib/capabilities';
 export * from './lib/count-text';
+export * from './lib/watches';

@@ -120,7 +120,7 @@ async function main(): Promise<void> {
     const seedStart = performance.now();
     const people = await seed(db);
     const seedSeconds = (performance.now() - seedStart) / 1000;
-    const { app } = createApp({ config, db, engine, mail: undefined as never, logger: pino({ level: 'silent' }) });
+    const { app, watches } = createApp({ config, db, engine, mail: undefined as never, logger: pino({ level: 'silent' }) });
     const server = app.listen(0, '127.0.0.1');
     await new Promise((resolve) => server.once('listening', resolve));
     const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}/api/v1/analyses`;
@@ -162,6 +162,7 @@ async function main(): Promise<void> {
       table.push({ query: name, matched, median: percentile(times, 0.5), p95: percentile(times, 0.95) });
     }
     server.close();
+    await watches.stop();
 
     const dbFile = join(dataDir, 'tallyfit.sqlite');
     process.stdout.write(

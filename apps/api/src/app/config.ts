@@ -10,6 +10,8 @@ export interface Config {
   /** A PostgreSQL connection string; when absent the embedded SQLite file is used. */
   databaseUrl?: string;
   jwtSecret: string;
+  /** 32 bytes that encrypt stored credentials (connection passwords, webhook secrets) with AES-256-GCM. */
+  secretKey: Buffer;
   accessTokenTtlSeconds: number;
   refreshTokenTtlSeconds: number;
   /** Failed sign-ins allowed per address and e-mail in a 15-minute window. */
@@ -51,6 +53,7 @@ export function loadConfig(env: Env, cwd = process.cwd()): Config {
     dataDir,
     databaseUrl: env['DATABASE_URL'] || undefined,
     jwtSecret: env['JWT_SECRET'] || secretFromDataDir(dataDir),
+    secretKey: env['TALLYFIT_SECRET_KEY'] ? parseSecretKey(env['TALLYFIT_SECRET_KEY']) : secretKeyFromDataDir(dataDir),
     accessTokenTtlSeconds: integer(env, 'ACCESS_TOKEN_TTL_SECONDS', 900, 30, 86_400),
     refreshTokenTtlSeconds: integer(env, 'REFRESH_TOKEN_TTL_SECONDS', 14 * 86_400, 60, 365 * 86_400),
     loginAttemptsPer15Minutes: integer(env, 'LOGIN_ATTEMPTS_PER_15_MINUTES', 10, 1, 10_000),
@@ -91,10 +94,26 @@ function flag(env: Env, name: string, fallback: boolean): boolean {
 }
 
 /** A secret generated on first start and kept beside the database, readable by its owner only. */
-function secretFromDataDir(dataDir: string): string {
-  const file = join(dataDir, 'jwt-secret');
+function secretFromDataDir(dataDir: string, fileName = 'jwt-secret', bytes = 48): string {
+  const file = join(dataDir, fileName);
   if (existsSync(file)) return readFileSync(file, 'utf8').trim();
-  const secret = randomBytes(48).toString('base64url');
+  const secret = randomBytes(bytes).toString('base64url');
   writeFileSync(file, secret + '\n', { mode: 0o600 });
   return secret;
+}
+
+function secretKeyFromDataDir(dataDir: string): Buffer {
+  const key = Buffer.from(secretFromDataDir(dataDir, 'secret-key', 32), 'base64url');
+  if (key.length !== 32) throw new ConfigError(`${join(dataDir, 'secret-key')} must hold 32 bytes (base64url); remove it only if nothing was encrypted with it`);
+  return key;
+}
+
+/** TALLYFIT_SECRET_KEY: 32 bytes written as 64 hex digits or as base64. */
+function parseSecretKey(raw: string): Buffer {
+  const text = raw.trim();
+  const key = /^[0-9a-fA-F]{64}$/.test(text) ? Buffer.from(text, 'hex') : Buffer.from(text, 'base64');
+  if (key.length !== 32) {
+    throw new ConfigError('TALLYFIT_SECRET_KEY must be 32 bytes written as 64 hex digits or as base64 (e.g. `openssl rand -hex 32`)');
+  }
+  return key;
 }

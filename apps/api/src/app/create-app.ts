@@ -24,6 +24,9 @@ import { apiNotFound, errorHandler } from './http/error-handler';
 import { reviewsRoutes } from './reviews/reviews.routes';
 import { studiesRoutes } from './studies/studies.routes';
 import { API_PREFIX, mountRoutes, type RouteDefinition } from './http/route-table';
+import { sourceConnectionsRoutes } from './watches/source-connections.routes';
+import { watchesRoutes } from './watches/watches.routes';
+import { startWatchRuntime, type WatchRuntime, type WatchRuntimeOptions } from './watches/watch-runtime';
 
 export interface AppContext {
   config: Config;
@@ -33,16 +36,20 @@ export interface AppContext {
   /** Mail delivery: the configured SMTP server or the local stand-in, started before the app. */
   mail: MailService;
   logger?: Logger;
+  /** How alert deliveries are retried and schedules re-read (tests shorten the waits). */
+  watchOptions?: Pick<WatchRuntimeOptions, 'delivery' | 'scheduleSyncMs'>;
 }
 
 export interface TallyfitApp {
   app: Express;
+  /** Scheduled pulls and alert deliveries, started with the app; stop it before closing the database. */
+  watches: WatchRuntime;
   /** Every API route with its access rule, for the OpenAPI document and the role matrix test. */
   routes: readonly RouteDefinition[];
 }
 
 /** Every resource's routes. A new resource is added here and nowhere else. */
-function allRoutes({ config, db, engine, mail }: AppContext): RouteDefinition[] {
+function allRoutes({ config, db, engine, mail }: AppContext, watches: WatchRuntime): RouteDefinition[] {
   const routes: RouteDefinition[] = [
     ...healthRoutes(db),
     ...authRoutes(db, config),
@@ -56,6 +63,8 @@ function allRoutes({ config, db, engine, mail }: AppContext): RouteDefinition[] 
     ...datasetsRoutes(db, config),
     ...reportsRoutes(db, config),
     ...sharesRoutes(db, config, mail),
+    ...watchesRoutes(watches.context, config.dataDir),
+    ...sourceConnectionsRoutes(db, config.secretKey),
   ];
   routes.push(...openApiRoutes(() => routes));
   return routes;
@@ -94,10 +103,11 @@ export function createApp(context: AppContext): TallyfitApp {
   app.use(cors({ origin: config.consoleOrigin ?? false }));
   app.use(express.json({ limit: '1mb' }));
 
-  const routes = allRoutes(context);
+  const watches = startWatchRuntime({ db, engine: context.engine, mail: context.mail, config, logger, ...context.watchOptions });
+  const routes = allRoutes(context, watches);
   mountRoutes(app, routes, createAuthenticate(db, config.jwtSecret));
   app.use('/api', apiNotFound);
   if (config.consoleDir) serveConsole(app, config.consoleDir);
   app.use(errorHandler);
-  return { app, routes };
+  return { app, routes, watches };
 }

@@ -6,7 +6,7 @@ import pino from 'pino';
 import request from 'supertest';
 import type { Role } from '@tallyfit/contracts';
 import { loadConfig, type Config } from '../app/config';
-import { createApp, type TallyfitApp } from '../app/create-app';
+import { createApp, type AppContext, type TallyfitApp } from '../app/create-app';
 import { migrateToLatest, openDatabase } from '../app/database';
 import { createUser } from '../app/identity/users.service';
 import { inProcessEngine, type EngineRunner } from '../app/engine/engine-runner';
@@ -58,6 +58,8 @@ export interface TestAppOptions {
    * in engine-pool.spec.ts.
    */
   engine?: EngineRunner;
+  /** Shorter waits for alert retries and schedule re-reads. */
+  watchOptions?: AppContext['watchOptions'];
 }
 
 /** A fresh app on a fresh, migrated database in its own temporary folder, with one person per role. */
@@ -76,7 +78,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestC
   await migrateToLatest(db);
   const engine = options.engine ?? inProcessEngine();
   const mail = await startMailService({ smtpUrl: config.smtpUrl, from: config.mailFrom, timeoutMs: 5000 });
-  const app = createApp({ config, db, engine, mail, logger: pino({ level: 'silent' }) });
+  const app = createApp({ config, db, engine, mail, logger: pino({ level: 'silent' }), watchOptions: options.watchOptions });
   const roles: Role[] = ['admin', 'lead', 'analyst', 'viewer'];
   const tokens = {} as Record<Role, string>;
   const userIds = {} as Record<Role, number>;
@@ -105,6 +107,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestC
       };
     },
     close: async () => {
+      await app.watches.stop();
       await engine.close();
       await mail.stop();
       await db.destroy();

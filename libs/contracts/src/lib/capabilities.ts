@@ -50,6 +50,22 @@ export const CAPABILITIES = {
     studyRoles: ['owner', 'contributor'],
     description: 'upload, count and delete datasets in a study',
   },
+  'watches.read': { roles: EVERYONE, description: 'read the watches of the studies one reads, with their batches and alerts' },
+  'watches.manage': {
+    roles: RUNNERS,
+    studyRoles: ['owner', 'contributor'],
+    description: 'create, edit and delete watches in a study, and feed them batches (pushed or from a dataset)',
+  },
+  'watches.pause': {
+    roles: ['admin', 'lead', 'analyst'],
+    studyRoles: ['owner', 'contributor'],
+    description: 'pause and resume a watch (leads in every study; analysts where they run analyses)',
+  },
+  'alerts.acknowledge': { roles: REVIEWERS, description: 'acknowledge a watch’s alarm with a note' },
+  'connections.manage': {
+    roles: RUNNERS,
+    description: 'add, edit, test and delete connections to a team’s own databases (passwords are write-only)',
+  },
 } as const satisfies Record<string, CapabilityRule>;
 
 export type Capability = keyof typeof CAPABILITIES;

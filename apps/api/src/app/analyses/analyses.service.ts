@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import type { AnalysisSpec, SegmentsInput } from '@tallyfit/engine';
+import type { AnalysisResult, AnalysisSpec, SegmentsInput } from '@tallyfit/engine';
 import type { AnalysisRecord, RerunAnalysisResponse, UpdateAnalysisRequest, User } from '@tallyfit/contracts';
 import { insertWithAudit, recordAudit } from '../audit/audit.service';
 import type { EngineRunner } from '../engine/engine-runner';
@@ -55,44 +55,57 @@ export async function createAnalysis(db: Knex, engine: EngineRunner, author: Use
   if (input.studyId !== undefined) await requireStudyContributor(db, author, input.studyId);
   const result = await engine.analyze(input.spec);
   const segments = await runSegments(engine, input.spec, input.segments);
-  const id = await db.transaction(async (trx) => {
-    const newId = await insertWithAudit(
-      trx,
-      'analyses',
-      {
-        title: input.title,
-        notes: input.notes ?? null,
-        author_id: author.id,
-        study_id: input.studyId ?? null,
-        dataset_id: input.datasetId ?? null,
-        status: 'draft',
-        version: 1,
-        is_latest: true,
-        ...resultColumns(input.spec, result),
-        ...segmentColumns(segments),
-        updated_at: now(trx),
-      },
-      (newId) => ({
-        actorId: author.id,
-        action: 'create',
-        entityType: 'analysis',
-        entityId: newId,
-        studyId: input.studyId ?? null,
-        summary: `ran analysis "${input.title}"`,
-        after: {
-          title: input.title,
-          studyId: input.studyId ?? null,
-          datasetId: input.datasetId ?? null,
-          p: result.conclusion.p,
-          ...(segments ? { segmentColumn: segments.column, segments: segments.result.rows.length, segmentsDeparting: segments.result.significantCount } : {}),
-        },
-      }),
-    );
-    // A first version starts its own series.
-    await trx('analyses').where({ id: newId }).update({ series_id: newId });
-    return newId;
-  });
+  const id = await db.transaction((trx) => storeAnalysis(trx, author, input, result, segments));
   return getAnalysisById(db, id);
+}
+
+/**
+ * Stores an analysis the engine has already run, with its audit event, inside the caller's
+ * transaction (so a watch's batch and its analysis are stored together or not at all). The caller
+ * has checked that the author may add work to the study. Answers the new analysis's id.
+ */
+export async function storeAnalysis(
+  trx: Knex.Transaction,
+  author: Pick<User, 'id'>,
+  input: NewAnalysis,
+  result: AnalysisResult,
+  segments: StoredSegments | null = null,
+): Promise<number> {
+  const newId = await insertWithAudit(
+    trx,
+    'analyses',
+    {
+      title: input.title,
+      notes: input.notes ?? null,
+      author_id: author.id,
+      study_id: input.studyId ?? null,
+      dataset_id: input.datasetId ?? null,
+      status: 'draft',
+      version: 1,
+      is_latest: true,
+      ...resultColumns(input.spec, result),
+      ...segmentColumns(segments),
+      updated_at: now(trx),
+    },
+    (id) => ({
+      actorId: author.id,
+      action: 'create',
+      entityType: 'analysis',
+      entityId: id,
+      studyId: input.studyId ?? null,
+      summary: `ran analysis "${input.title}"`,
+      after: {
+        title: input.title,
+        studyId: input.studyId ?? null,
+        datasetId: input.datasetId ?? null,
+        p: result.conclusion.p,
+        ...(segments ? { segmentColumn: segments.column, segments: segments.result.rows.length, segmentsDeparting: segments.result.significantCount } : {}),
+      },
+    }),
+  );
+  // A first version starts its own series.
+  await trx('analyses').where({ id: newId }).update({ series_id: newId });
+  return newId;
 }
 
 async function requireChangeable(db: Knex, caller: User, id: number): Promise<AnalysisRecord> {

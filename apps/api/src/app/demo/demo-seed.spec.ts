@@ -6,6 +6,7 @@ import { loadConfig } from '../config';
 import { migrateToLatest, openDatabase } from '../database';
 import { DEMO_ANALYSES, DEMO_STUDY } from './demo-scenarios';
 import { seedDemo } from './demo-seed';
+import { DEMO_WATCH } from './demo-watch';
 
 describe('demo seed', () => {
   let dataDir: string;
@@ -29,11 +30,21 @@ describe('demo seed', () => {
       { role: 'analyst', study_role: 'owner' },
       { role: 'viewer', study_role: 'reader' },
     ]);
-    const analyses = await db('analyses').where({ study_id: study.id }).pluck('title');
+    const analyses = await db('analyses')
+      .where({ study_id: study.id })
+      .whereNotIn('id', db('watch_batches').select('analysis_id'))
+      .pluck('title');
     expect(analyses.sort()).toEqual(DEMO_ANALYSES.map((demo) => demo.title).sort());
     const [dataset] = await db('datasets').where({ study_id: study.id });
     expect(dataset.file_name).toBe('support-tickets.csv');
     expect(JSON.parse(dataset.selected_json)).toMatchObject({ labels: ['Fri', 'Mon', 'Thu', 'Tue', 'Wed'], counts: [58, 88, 69, 71, 64], total: 350 });
+    const watch = await db('watches').where({ study_id: study.id }).first();
+    expect(watch).toMatchObject({ name: DEMO_WATCH.name, batch_count: DEMO_WATCH.batches, state: 'alarm', alert_state: 'acknowledged' });
+    const alerts = await db('watch_alerts').where({ watch_id: watch.id });
+    expect(alerts).toEqual([expect.objectContaining({ kind: 'alarm', note: expect.stringContaining('caching rule') })]);
+    // The alarm came after the fault began, not before (the first twelve periods are balanced).
+    const alarmBatch = await db('watch_batches').where({ id: alerts[0].batch_id }).first();
+    expect(alarmBatch.sequence).toBeGreaterThanOrEqual(DEMO_WATCH.faultFromBatch);
     // A second start seeds nothing more.
     await seedDemo(db, dataDir, 'demo password here');
     expect(await db('studies').count({ n: '*' })).toEqual([{ n: 1 }]);

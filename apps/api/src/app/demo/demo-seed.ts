@@ -8,6 +8,7 @@ import { countUsers, createUser } from '../identity/users.service';
 import { inProcessEngine } from '../engine/engine-runner';
 import { addStudyMember, createStudy } from '../studies/studies.service';
 import { seedDemoDataset } from './demo-dataset';
+import { seedDemoWatch } from './demo-watch';
 import { DEMO_ANALYSES, DEMO_STUDY } from './demo-scenarios';
 
 export interface DemoSignIn {
@@ -25,11 +26,11 @@ const DEMO_NAMES: Record<Role, string> = {
 
 /**
  * On an empty database: one demo person per role, a demo study (the analyst owns it, the viewer
- * reads it) and a few analyses of invented scenarios in it.
+ * reads it), a few analyses of invented scenarios in it, and a watch with a day of history.
  * Passwords are generated per data folder (or fixed by TALLYFIT_DEMO_PASSWORD for tests) and kept
  * in a file readable by its owner only, so every start can print them again.
  */
-export async function seedDemo(db: Knex, dataDir: string, fixedPassword?: string): Promise<DemoSignIn[]> {
+export async function seedDemo(db: Knex, dataDir: string, fixedPassword?: string, publicUrl = 'http://localhost:3000'): Promise<DemoSignIn[]> {
   const file = join(dataDir, 'demo-sign-ins.json');
   if ((await countUsers(db)) > 0) {
     return existsSync(file) ? (JSON.parse(readFileSync(file, 'utf8')) as DemoSignIn[]) : [];
@@ -52,6 +53,8 @@ export async function seedDemo(db: Knex, dataDir: string, fixedPassword?: string
     const engine = inProcessEngine();
     for (const demo of DEMO_ANALYSES) await createAnalysis(trx, engine, analyst, { ...demo, studyId: study.id });
     await seedDemoDataset(trx, dataDir, analyst, study.id);
+    const lead = people.find((person) => person.role === 'lead')!;
+    await seedDemoWatch(trx, engine, { analyst, lead }, study.id, publicUrl);
   });
   writeFileSync(file, JSON.stringify(signIns, null, 2) + '\n', { mode: 0o600 });
   return signIns;

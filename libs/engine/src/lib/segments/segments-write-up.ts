@@ -15,7 +15,7 @@ const adjustNames: Record<SegmentAdjustMethod, string> = {
 const testNames: Record<MainTest, string> = {
   pearson: "Pearson's X²",
   g: 'the G-test',
-  cressieRead: 'the Cressie–Read test',
+  'cressie-read': 'the Cressie–Read test',
   exact: 'the exact multinomial test',
 };
 

@@ -7,7 +7,7 @@ import { ChartSaveButtons } from '../../shared/charts/chart-save-buttons';
 import { themeColours } from '../../shared/charts/theme-colours';
 import { MAX_PANELS, segmentChartHeight, segmentChartOptions } from './segment-chart-options';
 
-const TEST_NAMES: Record<string, string> = { pearson: 'X²', g: 'G', cressieRead: 'CR', exact: 'exact' };
+const TEST_NAMES: Record<string, string> = { pearson: 'X²', g: 'G', 'cressie-read': 'CR', exact: 'exact' };
 
 /** The segments of an analysis: the write-up paragraph, the ranked table and the small multiples. */
 @Component({

@@ -1,8 +1,9 @@
-import { ANALYSIS_STATUSES, HISTORY_SORTS, type AnalysisStatus, type ListAnalysesQuery } from '@tallyfit/contracts';
-import { testNames } from '@tallyfit/engine';
+import { HISTORY_SORTS, listAnalysesQuerySchema, type AnalysisStatus, type ListAnalysesQuery } from '@tallyfit/contracts';
+import type { TestName } from '@tallyfit/engine';
+import type { z } from 'zod';
 
 export type HistorySort = (typeof HISTORY_SORTS)[number];
-export type TestName = (typeof testNames)[number];
+export type { TestName } from '@tallyfit/engine';
 
 /** The history's view as the URL holds it: every value is optional text from the query string. */
 export interface HistoryUrlParams {
@@ -53,27 +54,40 @@ export const DEFAULT_VIEW: HistoryView = {
   q: null,
 };
 
+/** The URL's day format (the picker's), a narrower form of the API's ISO 8601 dates. */
 const DAY = /^\d{4}-\d{2}-\d{2}$/;
+
+const queryFields = listAnalysesQuerySchema.shape;
+
+/**
+ * One URL value read with the API's own schema for that query field, or null where the API would
+ * refuse it (or where it is absent and the field has no default).
+ */
+function checked<K extends keyof typeof queryFields>(
+  key: K,
+  text: string | undefined,
+): Exclude<z.output<(typeof queryFields)[K]>, undefined> | null {
+  const parsed = queryFields[key].safeParse(text);
+  return parsed.success && parsed.data !== undefined ? (parsed.data as Exclude<z.output<(typeof queryFields)[K]>, undefined>) : null;
+}
 
 /** Reads a view from the URL; a hand-edited or stale link falls back to defaults rather than failing. */
 export function viewFromUrl(params: HistoryUrlParams): HistoryView {
-  const whole = (text: string | undefined) => (text && /^[1-9]\d*$/.test(text) ? Number(text) : null);
-  const oneOf = <T extends string>(text: string | undefined, allowed: readonly T[]): T | null =>
-    allowed.includes(text as T) ? (text as T) : null;
-  const pageSize = whole(params.pageSize);
+  const pageSize = checked('pageSize', params.pageSize);
+  const day = (text: string | undefined) => (text && DAY.test(text) && checked('from', text) !== null ? text : null);
   return {
-    page: whole(params.page) ?? 1,
+    page: checked('page', params.page) ?? 1,
     pageSize: pageSize !== null && (PAGE_SIZES as readonly number[]).includes(pageSize) ? pageSize : DEFAULT_VIEW.pageSize,
-    sort: oneOf(params.sort, HISTORY_SORTS) ?? DEFAULT_VIEW.sort,
-    order: oneOf(params.order, ['asc', 'desc'] as const) ?? DEFAULT_VIEW.order,
-    studyId: whole(params.studyId),
-    author: params.author === 'me' || whole(params.author) !== null ? (params.author as string) : null,
-    test: oneOf(params.test, testNames),
-    status: oneOf(params.status, ANALYSIS_STATUSES),
-    significant: params.significant === 'true' ? true : params.significant === 'false' ? false : null,
-    from: params.from && DAY.test(params.from) ? params.from : null,
-    to: params.to && DAY.test(params.to) ? params.to : null,
-    q: params.q?.trim() ? params.q.trim().slice(0, 200) : null,
+    sort: checked('sort', params.sort) ?? DEFAULT_VIEW.sort,
+    order: checked('order', params.order) ?? DEFAULT_VIEW.order,
+    studyId: checked('studyId', params.studyId),
+    author: checked('author', params.author),
+    test: checked('test', params.test),
+    status: checked('status', params.status),
+    significant: checked('significant', params.significant),
+    from: day(params.from),
+    to: day(params.to),
+    q: checked('q', params.q),
   };
 }
 

@@ -81,7 +81,7 @@ describe('NewAnalysisPage', () => {
     const ratio = visibleStep().querySelector<HTMLInputElement>('input[formcontrolname="ratio"]')!;
     type(ratio, '9:3:3');
     await settle();
-    expect(visibleStep().textContent).toContain('The ratio has 3 terms but there are 4 categories.');
+    expect(visibleStep().textContent).toContain('hypothesis.values has 3 entries but there are 4 categories');
     type(ratio, '9:3:3:1');
     await settle();
     // 556 observations under 9:3:3:1: 556·9/16 = 312.75, 556·3/16 = 104.25, 556/16 = 34.75 (arithmetic).

@@ -60,7 +60,8 @@ describe('PlannerPage', () => {
 
   it('says what is wrong with the inputs instead of answering', async () => {
     await type('alpha', '1.5');
-    expect(root.querySelector('[role="alert"]')?.textContent).toContain('Alpha must be between 0 and 1');
+    // The engine's own message (planning/power.ts).
+    expect(root.querySelector('[role="alert"]')?.textContent).toContain('alpha must be between 0 and 1, got 1.5');
     expect(root.textContent).toContain('Fix the inputs above to see the curve.');
   });
 });

@@ -50,28 +50,23 @@ export class PlannerPage {
   protected readonly effect = computed((): { w: number; df: number } | { message: string } => {
     const shares = this.fromShares();
     if (shares) return shares.ok ? { w: shares.w, df: shares.df } : { message: shares.message };
-    const w = this.w();
-    const df = this.dfTyped();
-    if (w === null || !(w > 0)) return { message: "Give Cohen's w, a number above 0 (0.1 small, 0.3 medium, 0.5 large)." };
-    if (df === null || !Number.isInteger(df) || df < 1) return { message: 'Degrees of freedom must be a whole number of 1 or more (categories − 1).' };
-    return { w, df };
+    // An empty field reaches the engine as a value that is not a number, and the engine names it.
+    return { w: this.w() ?? Number.NaN, df: this.dfTyped() ?? Number.NaN };
   });
 
   protected readonly plan = computed((): Plan => {
     const effect = this.effect();
     if ('message' in effect) return { ok: false, message: effect.message };
-    const alpha = this.alpha();
-    if (alpha === null || !(alpha > 0 && alpha < 1)) return { ok: false, message: 'Alpha must be between 0 and 1, for example 0.05.' };
+    const alpha = this.alpha() ?? Number.NaN;
+    // The engine checks w, df, alpha, n and the target power, and its messages are shown as they are.
     try {
       if (this.goal() === 'power') {
         const n = this.n();
-        if (n === null || !Number.isInteger(n) || n < 1) return { ok: false, message: 'The number of observations must be a whole number of 1 or more.' };
-        return { ok: true, goal: 'power', n, power: power({ ...effect, n, alpha }).power, ...effect, alpha };
+        if (n !== null && !Number.isInteger(n)) return { ok: false, message: 'The number of observations must be a whole number.' };
+        const result = power({ ...effect, n: n ?? Number.NaN, alpha });
+        return { ok: true, goal: 'power', n: n ?? 0, power: result.power, ...effect, alpha };
       }
-      const target = this.target();
-      if (target === null || !(target > alpha && target < 1)) {
-        return { ok: false, message: `The power to reach must be above alpha (${alpha}) and below 1, for example 0.8.` };
-      }
+      const target = this.target() ?? Number.NaN;
       const size = sampleSize({ ...effect, power: target, alpha });
       return { ok: true, goal: 'size', n: size.n, power: size.power, target, ...effect, alpha };
     } catch (error) {

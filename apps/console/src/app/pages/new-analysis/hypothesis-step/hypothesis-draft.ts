@@ -3,7 +3,7 @@
  * counts it implies for the observed data — computed by the engine itself, in the browser, so the
  * form can show them while the person types.
  */
-import { analyze, EngineInputError, type DistributionFamily, type DistributionParams, type Hypothesis } from '@tallyfit/engine';
+import { analysisSpecSchema, analyze, EngineInputError, type DistributionFamily, type DistributionParams, type Hypothesis } from '@tallyfit/engine';
 import type { ParsedCounts } from '../data-step/pasted-counts';
 
 export type HypothesisKind = Hypothesis['kind'];
@@ -52,9 +52,6 @@ export const FAMILY_NAMES: Record<DistributionFamily, string> = {
   benford: "Benford's law (first digits 1–9)",
 };
 
-/** Shares may miss 1 by rounding (a published table's precision); the engine renormalises within this. */
-export const SHARE_SUM_TOLERANCE = 0.01;
-
 export function sumOf(values: readonly (number | null)[]): number {
   return values.reduce<number>((total, value) => total + (value ?? 0), 0);
 }
@@ -67,45 +64,44 @@ function numbersFrom(text: string, separator: RegExp, what: string): { values: n
   const errors: string[] = [];
   const values = parts.map((part) => {
     const value = Number(part);
-    if (!Number.isFinite(value) || value < 0) errors.push(`${what}: "${part}" is not a number of 0 or more.`);
+    if (!Number.isFinite(value)) errors.push(`${what}: "${part}" is not a number.`);
     return value;
   });
   return { values, errors };
 }
 
-/** Turns the form's draft into a hypothesis for `k` categories, or says what is missing or wrong. */
-export function buildHypothesis(draft: HypothesisDraft, k: number, n: number): HypothesisOutcome {
+/**
+ * The engine's own verdict on a hypothesis for these data: its spec schema holds every rule
+ * (values given and not negative, one per category, shares adding up to 1 within the rounding
+ * tolerance, expected counts adding up to N), and its messages are shown as they are.
+ */
+function engineIssues(observed: ParsedCounts, hypothesis: unknown): string[] {
+  const parsed = analysisSpecSchema.safeParse({ observed, hypothesis });
+  if (parsed.success) return [];
+  return parsed.error.issues.filter((issue) => issue.path[0] === 'hypothesis').map((issue) => issue.message);
+}
+
+/** Turns the form's draft into a hypothesis for the observed categories, or says what is missing or wrong. */
+export function buildHypothesis(draft: HypothesisDraft, observed: ParsedCounts): HypothesisOutcome {
+  const k = observed.labels.length;
+  let hypothesis: Hypothesis;
   switch (draft.kind) {
     case 'equal':
-      return { ok: true, hypothesis: { kind: 'equal' } };
+      hypothesis = { kind: 'equal' };
+      break;
     case 'proportions':
     case 'counts': {
-      const errors: string[] = [];
-      const values = draft.values.slice(0, k);
-      if (values.length < k || values.some((value) => value === null || !Number.isFinite(value))) {
-        errors.push(`Give an expected ${draft.kind === 'proportions' ? 'share' : 'count'} for every category.`);
-      } else if (values.some((value) => (value as number) < 0)) {
-        errors.push('Expected values must not be negative.');
-      } else {
-        const total = sumOf(values);
-        if (draft.kind === 'proportions' && Math.abs(total - 1) > SHARE_SUM_TOLERANCE) {
-          errors.push(`The shares add up to ${round(total)}; they must add up to 1.`);
-        }
-        if (draft.kind === 'counts' && Math.abs(total - n) > SHARE_SUM_TOLERANCE * n) {
-          errors.push(`The expected counts add up to ${round(total)}; they must add up to the ${n} observations.`);
-        }
-      }
-      return errors.length > 0 ? { ok: false, errors } : { ok: true, hypothesis: { kind: draft.kind, values: values as number[] } };
+      // An empty field reaches the schema as an empty value, which it names ("each value is required").
+      const values = Array.from({ length: k }, (_, index) => draft.values[index] ?? undefined);
+      hypothesis = { kind: draft.kind, values: values as number[] };
+      break;
     }
     case 'ratio': {
       if (draft.ratio.trim() === '') return { ok: false, errors: ['Write the expected ratio, for example 9:3:3:1.'] };
       const { values, errors } = numbersFrom(draft.ratio, /:/, 'Ratio');
       if (errors.length > 0) return { ok: false, errors };
-      if (values.length !== k) {
-        return { ok: false, errors: [`The ratio has ${values.length} terms but there are ${k} categories.`] };
-      }
-      if (values.every((value) => value === 0)) return { ok: false, errors: ['The ratio terms must not all be 0.'] };
-      return { ok: true, hypothesis: { kind: 'ratio', values } };
+      hypothesis = { kind: 'ratio', values };
+      break;
     }
     case 'distribution': {
       const params: DistributionParams = {};
@@ -118,7 +114,7 @@ export function buildHypothesis(draft: HypothesisDraft, k: number, n: number): H
           params[param.name] = value;
         }
       }
-      const hypothesis: Hypothesis = { kind: 'distribution', family: draft.family };
+      hypothesis = { kind: 'distribution', family: draft.family };
       if (Object.keys(params).length > 0) hypothesis.params = params;
       if (draft.family === 'normal') {
         const breaks = numbersFromSigned(draft.breaks);
@@ -127,9 +123,12 @@ export function buildHypothesis(draft: HypothesisDraft, k: number, n: number): H
           errors.push(`Give ${k - 1} bin boundaries for the ${k} bins (one between each pair of neighbouring bins).`);
         } else hypothesis.breaks = breaks.values;
       }
-      return errors.length > 0 ? { ok: false, errors } : { ok: true, hypothesis };
+      if (errors.length > 0) return { ok: false, errors };
+      break;
     }
   }
+  const errors = engineIssues(observed, hypothesis);
+  return errors.length > 0 ? { ok: false, errors } : { ok: true, hypothesis };
 }
 
 function numbersFromSigned(text: string): { values: number[]; errors: string[] } {
@@ -144,10 +143,6 @@ function numbersFromSigned(text: string): { values: number[]; errors: string[] }
     return value;
   });
   return { values, errors };
-}
-
-function round(value: number): string {
-  return String(Number(value.toPrecision(6)));
 }
 
 export interface ExpectedPreviewRow {

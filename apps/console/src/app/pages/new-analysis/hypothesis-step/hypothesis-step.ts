@@ -7,7 +7,13 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
-import { distributionFamilies, type DistributionFamily, type Hypothesis } from '@tallyfit/engine';
+import {
+  distributionFamilies,
+  SHARE_SUM_EXACT_TOLERANCE,
+  SHARE_SUM_ROUNDING_TOLERANCE,
+  type DistributionFamily,
+  type Hypothesis,
+} from '@tallyfit/engine';
 import { totalOf } from '../data-step/data-choice';
 import type { ParsedCounts } from '../data-step/pasted-counts';
 import {
@@ -15,7 +21,6 @@ import {
   FAMILY_NAMES,
   FAMILY_PARAMS,
   previewExpected,
-  SHARE_SUM_TOLERANCE,
   sumOf,
   type HypothesisDraft,
   type HypothesisKind,
@@ -81,15 +86,15 @@ export class HypothesisStep {
     const total = this.valuesSum();
     const target = kind === 'proportions' ? 1 : this.n();
     const gap = Math.abs(total - target);
-    if (gap <= 1e-6 * Math.max(1, target)) return 'exact';
-    return gap <= SHARE_SUM_TOLERANCE * Math.max(1, target) ? 'rounded' : 'off';
+    if (gap <= SHARE_SUM_EXACT_TOLERANCE * Math.max(1, target)) return 'exact';
+    return gap <= SHARE_SUM_ROUNDING_TOLERANCE * Math.max(1, target) ? 'rounded' : 'off';
   });
 
   protected readonly outcome = computed(() => {
     this.draft();
     const observed = this.observed();
     if (!observed) return null;
-    return buildHypothesis(this.form.getRawValue() as HypothesisDraft, observed.labels.length, this.n());
+    return buildHypothesis(this.form.getRawValue() as HypothesisDraft, observed);
   });
   protected readonly preview = computed(() => {
     // re-read on every change of the form

@@ -47,6 +47,7 @@ describe('buildOptions', () => {
     expect(outcome.ok && outcome.options.exact).toBeUndefined();
   });
 
+  // The messages are the engine's own (its spec schema), shown as they are.
   it('says what is wrong with each setting', () => {
     const outcome = buildOptions(
       draft({
@@ -59,14 +60,14 @@ describe('buildOptions', () => {
     expect(outcome).toEqual({
       ok: false,
       errors: [
-        'Choose at least one test, or let Tallyfit choose.',
-        'The interval level must be between 0 and 1, for example 0.95.',
-        'Alpha must be between 0 and 1, for example 0.05.',
+        'tests must name at least one test',
+        'intervals.level must be a finite number',
+        'alpha must be below 1',
       ],
     });
     expect(buildOptions(draft({ exactMethod: 'monte-carlo', samples: 50, seed: -1 }))).toEqual({
       ok: false,
-      errors: ['Simulated samples must be a whole number from 100 to 100,000,000.', 'The seed must be a whole number from 0 to 4,294,967,295.'],
+      errors: ['exact.samples must be at least 100', 'exact.seed must not be negative'],
     });
   });
 });

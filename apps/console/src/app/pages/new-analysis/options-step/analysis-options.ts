@@ -2,10 +2,19 @@
  * The third step's choices — which tests, how the exact test runs, corrections, intervals and
  * alpha — turned into the options part of the engine's spec.
  */
-import type { AdjustMethod, AnalysisSpec, IntervalMethod, TestName } from '@tallyfit/engine';
+import {
+  analysisSpecBaseSchema,
+  TEST_LABELS,
+  testNames,
+  type AdjustMethod,
+  type AnalysisSpec,
+  type ExactMethod,
+  type ExactOrdering,
+  type IntervalMethod,
+  type TestName,
+} from '@tallyfit/engine';
 
-export type ExactOrdering = NonNullable<AnalysisSpec['exact']>['ordering'] & string;
-export type ExactMethod = NonNullable<AnalysisSpec['exact']>['method'] & string;
+export type { ExactMethod, ExactOrdering } from '@tallyfit/engine';
 
 export interface OptionsDraft {
   /** let the engine choose: Pearson and G, plus the exact test when the expected counts are small */
@@ -39,45 +48,32 @@ export const DEFAULT_OPTIONS: OptionsDraft = {
   alpha: 0.05,
 };
 
-export const TEST_NAMES: Record<TestName, string> = {
-  pearson: "Pearson's chi-square",
-  g: 'G-test (likelihood ratio)',
-  exact: 'Exact multinomial test',
-  'cressie-read': 'Cressie–Read power divergence',
-};
+/** Each test's heading, the engine's own words. */
+export const TEST_NAMES: Record<TestName, string> = Object.fromEntries(
+  testNames.map((test) => [test, TEST_LABELS[test].name]),
+) as Record<TestName, string>;
+
+/** The options part of the engine's spec schema: it holds every range rule, and its messages are shown as they are. */
+const optionsSchema = analysisSpecBaseSchema.omit({ observed: true, hypothesis: true });
+
+/** A field the form requires: left empty, it reaches the schema as a value that is not a number, which it names. */
+const required = (value: number | null) => value ?? Number.NaN;
 
 export function buildOptions(draft: OptionsDraft): OptionsOutcome {
-  const errors: string[] = [];
   const options: AnalysisOptions = {};
-  const tests = (Object.keys(draft.tests) as TestName[]).filter((test) => draft.tests[test]);
-  if (!draft.automaticTests) {
-    if (tests.length === 0) errors.push('Choose at least one test, or let Tallyfit choose.');
-    else options.tests = tests;
-  }
-  const exactMayRun = draft.automaticTests || draft.tests.exact;
-  if (exactMayRun) {
+  if (!draft.automaticTests) options.tests = testNames.filter((test) => draft.tests[test]);
+  if (draft.automaticTests || draft.tests.exact) {
     const exact: NonNullable<AnalysisSpec['exact']> = { ordering: draft.exactOrdering, method: draft.exactMethod };
     if (draft.exactMethod === 'monte-carlo') {
-      if (draft.samples !== null) {
-        if (!Number.isInteger(draft.samples) || draft.samples < 100 || draft.samples > 100_000_000) {
-          errors.push('Simulated samples must be a whole number from 100 to 100,000,000.');
-        } else exact.samples = draft.samples;
-      }
-      if (draft.seed !== null) {
-        if (!Number.isInteger(draft.seed) || draft.seed < 0 || draft.seed >= 2 ** 32) {
-          errors.push('The seed must be a whole number from 0 to 4,294,967,295.');
-        } else exact.seed = draft.seed;
-      }
+      if (draft.samples !== null) exact.samples = draft.samples;
+      if (draft.seed !== null) exact.seed = draft.seed;
     }
     options.exact = exact;
   }
   if (draft.williams) options.williams = true;
   options.posthoc = { adjust: draft.adjust };
-  if (draft.intervalLevel === null || !(draft.intervalLevel > 0 && draft.intervalLevel < 1)) {
-    errors.push('The interval level must be between 0 and 1, for example 0.95.');
-  } else options.intervals = { method: draft.intervalMethod, level: draft.intervalLevel };
-  if (draft.alpha === null || !(draft.alpha > 0 && draft.alpha < 1)) {
-    errors.push('Alpha must be between 0 and 1, for example 0.05.');
-  } else options.alpha = draft.alpha;
-  return errors.length > 0 ? { ok: false, errors } : { ok: true, options };
+  options.intervals = { method: draft.intervalMethod, level: required(draft.intervalLevel) };
+  options.alpha = required(draft.alpha);
+  const parsed = optionsSchema.safeParse(options);
+  return parsed.success ? { ok: true, options } : { ok: false, errors: parsed.error.issues.map((issue) => issue.message) };
 }
