@@ -5,6 +5,7 @@ import { loadConfig } from './app/config';
 import { createApp } from './app/create-app';
 import { migrateToLatest, openDatabase } from './app/database';
 import { seedDemo } from './app/demo/demo-seed';
+import { closeScanPools } from './app/datasets/range-threads';
 import { createEnginePool } from './app/engine/engine-pool';
 import { startMailService } from './app/mail/mail-service';
 import { listen } from './app/server/listen';
@@ -50,7 +51,7 @@ async function main(): Promise<void> {
   process.stdout.write(lines.filter((line, i) => line !== '' || i === 0 || i === lines.length - 1).join('\n') + '\n');
 
   const shutdown = () => {
-    server.close(() => void watches.stop().then(() => Promise.all([engine.close(), mail.stop(), db.destroy()])).then(() => process.exit(0)));
+    server.close(() => void watches.stop().then(() => Promise.all([engine.close(), closeScanPools(), mail.stop(), db.destroy()])).then(() => process.exit(0)));
   };
   process.on('SIGINT', shutdown);
   process.on('SIGTERM', shutdown);

@@ -13,4 +13,5 @@ export * from './lib/reviews';
 export * from './lib/datasets';
 export * from './lib/shares';
 export * from './lib/capabilities';
+export * from './lib/count-text';
 export * from './lib/watches';

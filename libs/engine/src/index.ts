@@ -77,3 +77,16 @@ export {
   type SequentialStartSpec,
   type ShareInterval,
 } from './lib/sequential';
+export {
+  analyzeSegments,
+  segmentsInputSchema,
+  segmentAdjustMethods,
+  MAX_SEGMENTS,
+  type SegmentsInput,
+  type SegmentsResult,
+  type SegmentRow,
+  type SegmentDriver,
+  type SegmentFlag,
+  type SegmentAdjustMethod,
+} from './lib/segments/analyze-segments';
+export { adjustPValues } from './lib/posthoc/adjust-p-values';

@@ -10,6 +10,7 @@ import { readFixture, rowWhere } from './testing/reference-fixtures';
 import {
   addSequentialBatch,
   analyze,
+  analyzeSegments,
   analyzeSequential,
   chiSquareCriticalValue,
   chiSquareLogSurvival,
@@ -68,6 +69,25 @@ describe('README examples', () => {
     const { spec: merged, note } = mergeCategories(spec, plan!);
     expect(note).toBe('Merged before testing: "birch", "larch" into "birch + larch".');
     expect(analyze(merged).report.methods).toContain(note);
+  });
+
+  it('segments', () => {
+    const split = analyzeSegments({
+      spec: { hypothesis: { kind: 'equal' } },
+      labels: ['control', 'variant'],
+      segments: [
+        { segment: 'desktop', counts: [1752, 1895] },
+        { segment: 'tablet', counts: [500, 500] },
+        { segment: 'watch', counts: [3, 1] },
+      ],
+      segmentName: 'device',
+    });
+    // McDonald, Handbook of Biological Statistics, 3rd ed. (2014): 1752 vs 1895 under 1:1, p = 0.0179; Holm with m = 3 triples the smallest p.
+    expect(split.rows[0]).toMatchObject({ segment: 'desktop', rank: 1, test: 'pearson', significant: false });
+    expect(split.rows[0].p).toBeCloseTo(0.0179, 4);
+    expect(split.rows[0].pAdjusted).toBeCloseTo(3 * 0.017887, 5);
+    expect(split.rows.find((row) => row.segment === 'watch')!.flag?.code).toBe('too-small');
+    expect(split.report.paragraph).toMatch(/^The same test was run in each of 3 segments by device, and the 3 p-values were adjusted with Holm's/);
   });
 
   it('effect size, categories and intervals', () => {

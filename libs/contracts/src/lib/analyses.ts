@@ -1,5 +1,13 @@
 import { z } from 'zod';
-import { analysisSpecBaseSchema, analysisSpecSchema, testNames, type AnalysisResult, type AnalysisSpec } from '@tallyfit/engine';
+import {
+  analysisSpecBaseSchema,
+  analysisSpecSchema,
+  segmentAdjustMethods,
+  testNames,
+  type AnalysisResult,
+  type AnalysisSpec,
+  type SegmentsResult,
+} from '@tallyfit/engine';
 import { countSelectionSchema } from './datasets';
 import { booleanQueryText, dateQueryText, idText, pageQueryFields } from './pagination';
 import { personRefSchema } from './people-ref';
@@ -35,6 +43,10 @@ export const datasetAnalysisRequestSchema = z.strictObject({
   datasetId: positiveId('datasetId'),
   selection: countSelectionSchema,
   spec: analysisSpecBaseSchema.omit({ observed: true }),
+  /** also test each segment of this column (raw rows only), with the family of p-values adjusted */
+  segmentColumn: z.string().trim().min(1, { message: 'segmentColumn must name a column' }).max(200, { message: 'segmentColumn is too long' }).optional(),
+  /** how the segment family is adjusted (default holm) */
+  segmentAdjust: z.enum(segmentAdjustMethods, { message: `segmentAdjust must be one of ${segmentAdjustMethods.join(', ')}` }).optional(),
 });
 export type DatasetAnalysisRequest = z.infer<typeof datasetAnalysisRequestSchema>;
 
@@ -68,6 +80,8 @@ const analysisCommonShape = {
   seriesId: z.number().int(),
   previousId: z.number().int().nullable(),
   isLatest: z.boolean(),
+  /** the dataset column the analysis was also split by, when it has segments */
+  segmentColumn: z.string().nullable(),
   createdAt: z.string(),
   updatedAt: z.string(),
 };
@@ -77,10 +91,12 @@ export const analysisRecordSchema = z.object({
   ...analysisCommonShape,
   spec: analysisSpecSchema,
   result: z.record(z.string(), z.unknown()).describe("the engine's result (see the engine's AnalysisResult)"),
+  segments: z.record(z.string(), z.unknown()).nullable().describe("each segment's test, ranked, with adjusted p-values (the engine's SegmentsResult), or null"),
 });
-export type AnalysisRecord = Omit<z.infer<typeof analysisRecordSchema>, 'result' | 'spec'> & {
+export type AnalysisRecord = Omit<z.infer<typeof analysisRecordSchema>, 'result' | 'spec' | 'segments'> & {
   spec: AnalysisSpec;
   result: AnalysisResult;
+  segments: SegmentsResult | null;
 };
 
 /** One row of a list of analyses: enough to browse without loading every result. */

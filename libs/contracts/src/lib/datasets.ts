@@ -34,8 +34,25 @@ export const categoryCountsSchema = z.object({
   total: z.number().int(),
   /** rows left out because the category (or its count) was empty */
   skippedEmpty: z.number().int(),
+  /** how thousands separators or decimal marks in a count column were read (see readCountColumn) */
+  countDecisions: z.array(z.string()).optional(),
 });
 export type CategoryCounts = z.infer<typeof categoryCountsSchema>;
+
+/** The counts of a raw category column split by a second column: one row of counts per segment. */
+export const segmentCountsSchema = z.object({
+  selection: countSelectionSchema,
+  segmentColumn: z.string(),
+  /** the categories, in the same order in every segment */
+  labels: z.array(z.string()),
+  segments: z.array(z.object({ segment: z.string(), counts: z.array(z.number().int()), total: z.number().int() })),
+  total: z.number().int(),
+  /** rows left out because the category was empty */
+  skippedEmpty: z.number().int(),
+  /** rows left out of the segments because the segment column was empty */
+  skippedEmptySegment: z.number().int(),
+});
+export type SegmentCounts = z.infer<typeof segmentCountsSchema>;
 
 export const datasetSummarySchema = z.object({
   id: z.number().int(),
@@ -85,4 +102,5 @@ export const datasetUploadFieldsSchema = z
 /** Limits the upload and its summaries keep to (the API states them; the console shows them). */
 export const DATASET_PREVIEW_ROWS = 20;
 export const DATASET_MAX_CATEGORIES = 1000;
-
+/** Each segment is a test of its own; a family larger than this is no longer read segment by segment. */
+export const DATASET_MAX_SEGMENTS = 200;

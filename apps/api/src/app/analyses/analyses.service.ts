@@ -1,14 +1,14 @@
 import type { Knex } from 'knex';
-import type { AnalysisResult, AnalysisSpec } from '@tallyfit/engine';
+import type { AnalysisResult, AnalysisSpec, SegmentsInput } from '@tallyfit/engine';
 import type { AnalysisRecord, RerunAnalysisResponse, UpdateAnalysisRequest, User } from '@tallyfit/contracts';
 import { insertWithAudit, recordAudit } from '../audit/audit.service';
-import type { EngineRunner } from '../engine/engine-runner';
+import type { EngineRunner, EngineRunOptions } from '../engine/engine-runner';
 import { now } from '../http/db-time';
 import { conflict, forbidden, notFound } from '../http/http-error';
 import { requireStudyContributor } from '../studies/studies.service';
 import { mayChangeAnalysis, scopeToReader } from './analysis-access';
 import { compareRuns } from './analysis-changes';
-import { resultColumns, selectAnalyses, toRecord } from './analysis-rows';
+import { resultColumns, segmentColumns, selectAnalyses, toRecord, type StoredSegments } from './analysis-rows';
 
 /** What a new analysis needs. A dataset-based analysis passes the spec built from the dataset and its id. */
 export interface NewAnalysis {
@@ -17,6 +17,21 @@ export interface NewAnalysis {
   studyId?: number;
   notes?: string;
   datasetId?: number;
+  /** a dataset-based analysis split by a second column: the column and the engine's segments input */
+  segments?: { column: string; input: SegmentsInput };
+}
+
+/** The segments of a run: the stored column and counts tested against the run's spec (without its observed counts). */
+async function runSegments(
+  engine: EngineRunner,
+  spec: AnalysisSpec,
+  segments: { column: string; input: SegmentsInput } | undefined,
+  run: EngineRunOptions,
+): Promise<StoredSegments | null> {
+  if (!segments) return null;
+  const { observed: _observed, ...shared } = spec;
+  const input = { ...segments.input, spec: shared };
+  return { column: segments.column, input, result: await engine.analyzeSegments(input, run) };
 }
 
 /** Any stored analysis by id, without an access check (for services that already checked). */
@@ -43,8 +58,10 @@ export async function getReadableAnalysis(db: Knex, caller: User, id: number): P
  */
 export async function createAnalysis(db: Knex, engine: EngineRunner, author: User, input: NewAnalysis): Promise<AnalysisRecord> {
   if (input.studyId !== undefined) await requireStudyContributor(db, author, input.studyId);
-  const result = await engine.analyze(input.spec, { owner: String(author.id) });
-  const id = await db.transaction((trx) => storeAnalysis(trx, author, input, result));
+  const owner = { owner: String(author.id) };
+  const result = await engine.analyze(input.spec, owner);
+  const segments = await runSegments(engine, input.spec, input.segments, owner);
+  const id = await db.transaction((trx) => storeAnalysis(trx, author, input, result, segments));
   return getAnalysisById(db, id);
 }
 
@@ -53,7 +70,13 @@ export async function createAnalysis(db: Knex, engine: EngineRunner, author: Use
  * transaction (so a watch's batch and its analysis are stored together or not at all). The caller
  * has checked that the author may add work to the study. Answers the new analysis's id.
  */
-export async function storeAnalysis(trx: Knex.Transaction, author: Pick<User, 'id'>, input: NewAnalysis, result: AnalysisResult): Promise<number> {
+export async function storeAnalysis(
+  trx: Knex.Transaction,
+  author: Pick<User, 'id'>,
+  input: NewAnalysis,
+  result: AnalysisResult,
+  segments: StoredSegments | null = null,
+): Promise<number> {
   const newId = await insertWithAudit(
     trx,
     'analyses',
@@ -67,6 +90,7 @@ export async function storeAnalysis(trx: Knex.Transaction, author: Pick<User, 'i
       version: 1,
       is_latest: true,
       ...resultColumns(input.spec, result),
+      ...segmentColumns(segments),
       updated_at: now(trx),
     },
     (id) => ({
@@ -76,7 +100,13 @@ export async function storeAnalysis(trx: Knex.Transaction, author: Pick<User, 'i
       entityId: id,
       studyId: input.studyId ?? null,
       summary: `ran analysis "${input.title}"`,
-      after: { title: input.title, studyId: input.studyId ?? null, datasetId: input.datasetId ?? null, p: result.conclusion.p },
+      after: {
+        title: input.title,
+        studyId: input.studyId ?? null,
+        datasetId: input.datasetId ?? null,
+        p: result.conclusion.p,
+        ...(segments ? { segmentColumn: segments.column, segments: segments.result.rows.length, segmentsDeparting: segments.result.significantCount } : {}),
+      },
     }),
   );
   // A first version starts its own series.
@@ -142,7 +172,12 @@ export async function rerunAnalysis(
   if (!previous.isLatest) throw conflict(`analysis ${id} has a newer version; re-run the latest one`);
   if (previous.study) await requireStudyContributor(db, caller, previous.study.id);
   const nextSpec = spec ?? previous.spec;
-  const result = await engine.analyze(nextSpec, { owner: String(caller.id) });
+  const owner = { owner: String(caller.id) };
+  const result = await engine.analyze(nextSpec, owner);
+  // A split analysis is re-run with the same segments' counts.
+  const stored = await db('analyses').where({ id }).first('segments_json');
+  const storedSegments = stored?.segments_json ? (JSON.parse(stored.segments_json) as StoredSegments) : undefined;
+  const segments = await runSegments(engine, nextSpec, storedSegments, owner);
   const newId = await db.transaction(async (trx) => {
     // Only one re-run of a version may win: the update claims the version, a racing one finds nothing to claim.
     const claimed = await trx('analyses').where({ id, is_latest: true }).update({ is_latest: false });
@@ -162,6 +197,7 @@ export async function rerunAnalysis(
         previous_id: previous.id,
         is_latest: true,
         ...resultColumns(nextSpec, result),
+        ...segmentColumns(segments),
         updated_at: now(trx),
       },
       (inserted) => ({

@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { ENGINE_VERSION, upgradeStoredResult, type AnalysisResult, type AnalysisSpec } from '@tallyfit/engine';
+import { ENGINE_VERSION, upgradeStoredResult, type AnalysisResult, type AnalysisSpec, type SegmentsInput, type SegmentsResult } from '@tallyfit/engine';
 import type { AnalysisRecord, AnalysisStatus, AnalysisSummary } from '@tallyfit/contracts';
 import { isoDate } from '../http/db-time';
 
@@ -28,6 +28,8 @@ export interface AnalysisRow {
   version: number;
   previous_id: number | null;
   is_latest: number | boolean;
+  segment_column: string | null;
+  segments_json?: string | null;
   created_at: string | Date;
   updated_at: string | Date | null;
 }
@@ -62,7 +64,7 @@ export const SUMMARY_COLUMNS = [
   'analyses.id', 'analyses.title', 'analyses.notes', 'analyses.author_id', 'analyses.study_id', 'analyses.dataset_id',
   'analyses.status', 'analyses.hypothesis_kind', 'analyses.n', 'analyses.k', 'analyses.p', 'analyses.alpha',
   'analyses.significant', 'analyses.tests_run', 'analyses.engine_version', 'analyses.series_id', 'analyses.version',
-  'analyses.previous_id', 'analyses.is_latest', 'analyses.created_at', 'analyses.updated_at',
+  'analyses.previous_id', 'analyses.is_latest', 'analyses.segment_column', 'analyses.created_at', 'analyses.updated_at',
   'users.name as author_name', 'studies.name as study_name',
 ];
 
@@ -80,6 +82,7 @@ function commonFields(row: AnalysisRow) {
     seriesId: row.series_id ?? row.id,
     previousId: row.previous_id,
     isLatest: Boolean(row.is_latest),
+    segmentColumn: row.segment_column ?? null,
     createdAt: isoDate(row.created_at),
     updatedAt: isoDate(row.updated_at ?? row.created_at),
   };
@@ -101,4 +104,18 @@ export const toRecord = (row: AnalysisRow): AnalysisRecord => ({
   spec: JSON.parse(row.spec_json),
   // Results stored by engine 0.1.x keyed the Cressie–Read test `cressieRead`; read them in today's form.
   result: upgradeStoredResult(JSON.parse(row.result_json)),
+  segments: row.segments_json ? (JSON.parse(row.segments_json) as StoredSegments).result : null,
+});
+
+/** What segments_json holds: the column, the engine's input (so a re-run tests the same segments again) and its result. */
+export interface StoredSegments {
+  column: string;
+  input: SegmentsInput;
+  result: SegmentsResult;
+}
+
+/** The columns that keep an analysis's segments (both null without a split). */
+export const segmentColumns = (segments: StoredSegments | null) => ({
+  segment_column: segments?.column ?? null,
+  segments_json: segments ? JSON.stringify(segments) : null,
 });

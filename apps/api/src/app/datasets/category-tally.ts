@@ -1,24 +1,21 @@
 import type { CategoryCounts, CountSelection } from '@tallyfit/contracts';
-import { DATASET_MAX_CATEGORIES } from '@tallyfit/contracts';
+import { DATASET_MAX_CATEGORIES, readCount, readCountColumn } from '@tallyfit/contracts';
 import { DatasetFormatError } from './dataset-format-error';
 
-/** Accumulates category counts row by row, in constant memory per category. */
+/** Accumulates category counts row by row (raw rows are counted by bytes in row-counter.ts). */
 export interface CategoryTally {
   add(cells: string[], where: () => string): void;
   finish(): CategoryCounts;
 }
 
-/** Sorts labels so digits and numbered categories read naturally (2 before 10). */
-const naturalOrder = new Intl.Collator('en', { numeric: true, sensitivity: 'variant' }).compare;
-
-/** A whole number ≥ 0 written plainly ("12", "12.0"), as a count column holds. */
+/** A count written as people write it ("12", "1,234", "1 234"; `readCount` in contracts holds the rule), or undefined. */
 export function parseCount(text: string): number | undefined {
-  if (!/^\d+(\.0*)?$/.test(text)) return undefined;
-  const value = Number(text);
-  return Number.isSafeInteger(value) ? value : undefined;
+  const reading = readCount(text);
+  return reading.ok ? reading.value : undefined;
 }
 
-function columnIndex(header: string[], name: string, role: string): number {
+/** Where the named column is in the header; an error naming the columns when it is not there. */
+export function columnIndex(header: string[], name: string, role: string): number {
   const index = header.indexOf(name);
   if (index === -1) {
     throw new DatasetFormatError('line 1', `there is no column named "${name}" for the ${role}; the columns are ${header.map((h) => `"${h}"`).join(', ')}`);
@@ -26,47 +23,17 @@ function columnIndex(header: string[], name: string, role: string): number {
   return index;
 }
 
-/** Raw rows: each row is one observation and `column` holds its category. Empty cells are skipped and counted. */
-function rawTally(header: string[], selection: Extract<CountSelection, { shape: 'raw' }>): CategoryTally {
-  const index = columnIndex(header, selection.column, 'categories');
-  const counts = new Map<string, number>();
-  let skippedEmpty = 0;
-  return {
-    add(cells, where) {
-      const label = cells[index].trim();
-      if (label === '') {
-        skippedEmpty++;
-        return;
-      }
-      const seen = counts.get(label);
-      if (seen !== undefined) {
-        counts.set(label, seen + 1);
-        return;
-      }
-      if (counts.size >= DATASET_MAX_CATEGORIES) {
-        throw new DatasetFormatError(
-          where(),
-          `column "${selection.column}" has more than ${DATASET_MAX_CATEGORIES} different values, too many for categories; pick the column that holds the category of each row`,
-        );
-      }
-      counts.set(label, 1);
-    },
-    finish() {
-      const labels = [...counts.keys()].sort(naturalOrder);
-      const values = labels.map((label) => counts.get(label)!);
-      return { selection, labels, counts: values, total: values.reduce((a, b) => a + b, 0), skippedEmpty };
-    },
-  };
-}
-
 /** A table of counts: one row per category, its label in one column and how many were seen in another. */
-function countsTableTally(header: string[], selection: Extract<CountSelection, { shape: 'counts' }>): CategoryTally {
+export function countsTableTally(header: string[], selection: Extract<CountSelection, { shape: 'counts' }>): CategoryTally {
   const labelIndex = columnIndex(header, selection.labelColumn, 'labels');
   const countIndex = columnIndex(header, selection.countColumn, 'counts');
   if (labelIndex === countIndex) throw new DatasetFormatError('line 1', 'the label column and the count column must be different columns');
+  const countProblem = (text: string, label: string, message: string) =>
+    `the count "${text}" for "${label}" in column "${selection.countColumn}" ${message}; counts are whole numbers of 0 or more`;
   const firstSeen = new Map<string, string>();
   const labels: string[] = [];
-  const counts: number[] = [];
+  const texts: string[] = [];
+  const places: string[] = [];
   let skippedEmpty = 0;
   return {
     add(cells, where) {
@@ -78,11 +45,9 @@ function countsTableTally(header: string[], selection: Extract<CountSelection, {
       }
       if (label === '') throw new DatasetFormatError(where(), `the label in column "${selection.labelColumn}" is empty`);
       if (text === '') throw new DatasetFormatError(where(), `the count for "${label}" in column "${selection.countColumn}" is empty`);
-      const count = parseCount(text);
-      if (count === undefined) {
-        const problem = /^-\s*\d/.test(text) ? 'is negative' : /^\d*\.\d+$/.test(text) ? 'is not a whole number' : 'is not a number';
-        throw new DatasetFormatError(where(), `the count "${text}" for "${label}" in column "${selection.countColumn}" ${problem}; counts are whole numbers of 0 or more`);
-      }
+      // A count wrong in itself is named at once, in file order; only an ambiguous one waits for the whole column.
+      const reading = readCount(text);
+      if (!reading.ok && reading.problem !== 'ambiguous') throw new DatasetFormatError(where(), countProblem(text, label, reading.message));
       const earlier = firstSeen.get(label);
       if (earlier !== undefined) {
         throw new DatasetFormatError(where(), `the label "${label}" appears a second time (first on ${earlier}); each category needs one row`);
@@ -92,14 +57,26 @@ function countsTableTally(header: string[], selection: Extract<CountSelection, {
       }
       firstSeen.set(label, where());
       labels.push(label);
-      counts.push(count);
+      texts.push(text);
+      places.push(where());
     },
     finish() {
-      return { selection, labels, counts, total: counts.reduce((a, b) => a + b, 0), skippedEmpty };
+      // The column is read as a whole, so "1,000" is settled by "1,020" further down.
+      const reading = readCountColumn(texts);
+      const [problem] = reading.problems;
+      if (problem) {
+        const { index, message } = problem;
+        throw new DatasetFormatError(places[index], countProblem(texts[index], labels[index], message));
+      }
+      const counts = reading.values as number[];
+      return {
+        selection,
+        labels,
+        counts,
+        total: counts.reduce((a, b) => a + b, 0),
+        skippedEmpty,
+        ...(reading.decisions.length ? { countDecisions: reading.decisions } : {}),
+      };
     },
   };
-}
-
-export function createCategoryTally(header: string[], selection: CountSelection): CategoryTally {
-  return selection.shape === 'raw' ? rawTally(header, selection) : countsTableTally(header, selection);
 }

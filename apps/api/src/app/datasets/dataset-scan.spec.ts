@@ -77,6 +77,44 @@ describe('reading uploaded tables', () => {
     expect(error.message).toMatch(/^line 51431: this row has 1 field but the header has 2/);
   });
 
+  it('counts rows with an empty category as skipped, and skips rows with no text at all', async () => {
+    const path = file('id;shop\r\n1;North\r\n2;\r\n3;  \r\n;\r\n4;"North"\r\n5;South');
+    const result = await scan(path, 'csv', { shape: 'raw', column: 'shop' });
+    expect(result.rowCount).toBe(5);
+    expect(result.selectedCounts).toEqual({ selection: { shape: 'raw', column: 'shop' }, labels: ['North', 'South'], counts: [2, 1], total: 3, skippedEmpty: 2 });
+  });
+
+  it('reads CRLF inside a quoted value, a doubled quote, and a last row without a line end', async () => {
+    const path = file('note,shop\r\n"first\r\nsecond",A\r\n"say ""hi""",B\r\nplain,A');
+    const result = await scan(path, 'csv', { shape: 'raw', column: 'shop' });
+    expect(result.preview).toEqual([
+      ['first\r\nsecond', 'A'],
+      ['say "hi"', 'B'],
+      ['plain', 'A'],
+    ]);
+    expect(result.selectedCounts).toMatchObject({ labels: ['A', 'B'], counts: [2, 1] });
+  });
+
+  it('refuses a quote inside a value that does not start with one, naming its line', async () => {
+    const error = await formatError(scan(file('size,n\n5" screen,2\n')));
+    expect(error.message).toMatch(/^line 2: a quote appears inside a value that does not start with a quote/);
+  });
+
+  it('reads counts with thousands separators and says how it read them', async () => {
+    const path = file('variant\tvisitors\ncontrol\t1,000\nnew layout\t1,020\n', 'tsv');
+    const result = await scan(path, 'tsv', { shape: 'counts', labelColumn: 'variant', countColumn: 'visitors' });
+    expect(result.selectedCounts).toMatchObject({ counts: [1000, 1020], countDecisions: ['The comma was read as a thousands separator (“1,020” is 1020).'] });
+    expect(result.columns[1].wholeNumbers).toBe(true);
+  });
+
+  it('names an ambiguous count and both its readings', async () => {
+    const path = file('variant\tvisitors\ncontrol\t1.000\nnew layout\t25\n', 'tsv');
+    const error = await formatError(scan(path, 'tsv', { shape: 'counts', labelColumn: 'variant', countColumn: 'visitors' }));
+    expect(error.message).toBe(
+      'line 2: the count "1.000" for "control" in column "visitors" is ambiguous: 1000 with the point between thousands, or 1 with the point as a decimal mark; write 1000 or 1; counts are whole numbers of 0 or more',
+    );
+  });
+
   it('refuses a TSV file that is separated by commas', async () => {
     const error = await formatError(scan(file('colour,count\nred,3\n', 'tsv'), 'tsv'));
     expect(error.message).toMatch(/^line 1: a TSV file separates its columns with tabs, but this header has none and uses commas/);

@@ -1,14 +1,14 @@
 import { chmodSync, mkdirSync, renameSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Knex } from 'knex';
-import type { CategoryCounts, CountSelection, DatasetRecord, DatasetSummary, User } from '@tallyfit/contracts';
+import type { CategoryCounts, CountSelection, DatasetRecord, DatasetSummary, SegmentCounts, User } from '@tallyfit/contracts';
 import { recordAudit } from '../audit/audit.service';
 import { insertedId, isoDate, now } from '../http/db-time';
 import { forbidden, notFound, unprocessable } from '../http/http-error';
 import { getStudy, requireStudyContributor } from '../studies/studies.service';
 import { memberStudyIds, readsEveryStudy } from '../studies/study-access';
 import { DatasetFormatError } from './dataset-format-error';
-import { countCategories, scanTable } from './dataset-scan';
+import { countCategories, countSegments, scanTable } from './dataset-scan';
 import { sha256OfFile } from './file-checksum';
 import type { FileKind } from './file-kind';
 
@@ -211,6 +211,36 @@ async function countsOf(dataDir: string, row: DatasetRow, selection: CountSelect
   } catch (error) {
     throw asUnprocessable(error);
   }
+}
+
+/** The counts of a raw selection split by a segment column, read from the stored file in one pass. */
+async function segmentCountsOf(dataDir: string, row: DatasetRow, selection: Extract<CountSelection, { shape: 'raw' }>, segmentColumn: string): Promise<SegmentCounts> {
+  if (!row.stored_file) throw notFound(`the file of dataset ${row.id} is no longer stored`);
+  try {
+    return await countSegments(join(dataDir, row.stored_file), row.kind, selection, segmentColumn);
+  } catch (error) {
+    throw asUnprocessable(error);
+  }
+}
+
+/**
+ * The counts of a raw selection split by a segment column, read from the stored file in one pass;
+ * a table of counts has no second column to split by (422).
+ */
+export async function segmentsOfDataset(
+  db: Knex,
+  dataDir: string,
+  caller: User,
+  id: number,
+  selection: CountSelection,
+  segmentColumn: string,
+): Promise<SegmentCounts> {
+  if (selection.shape !== 'raw') {
+    throw unprocessable('segments need raw rows (one row per observation); a table of counts has no second column to split by', [
+      { path: 'segmentColumn', message: 'only with a selection of shape "raw"' },
+    ]);
+  }
+  return segmentCountsOf(dataDir, await readableRow(db, caller, id), selection, segmentColumn);
 }
 
 /**

@@ -1,13 +1,12 @@
 import ExcelJS from 'exceljs';
 import { DatasetFormatError } from './dataset-format-error';
-import type { RowVisitor } from './table-row';
 
 /**
- * Streams the rows of the first worksheet of an XLSX workbook to `visit` with exceljs's streaming
- * reader, so large sheets are never held in memory whole. Empty rows are skipped; shorter rows are
+ * Streams the rows of the first worksheet of an XLSX workbook to `visit` (with the sheet's row
+ * number) with exceljs's streaming reader, so large sheets are never held in memory whole. Empty rows are skipped; shorter rows are
  * padded to the header's width; a value beyond the header's last column is an error naming the row.
  */
-export async function readXlsxRows(path: string, visit: RowVisitor): Promise<void> {
+export async function readXlsxRows(path: string, visit: (cells: string[], rowNumber: number) => void): Promise<void> {
   const reader = new ExcelJS.stream.xlsx.WorkbookReader(path, {
     worksheets: 'emit',
     sharedStrings: 'cache',
@@ -31,7 +30,7 @@ export async function readXlsxRows(path: string, visit: RowVisitor): Promise<voi
           throw new DatasetFormatError(where(), `a value sits in column ${columnLetter(lastFilled(values))}, beyond the header's last column ${columnLetter(width - 1)}`);
         }
         while (values.length < width) values.push('');
-        visit(values.slice(0, width), where);
+        visit(values.slice(0, width), row.number);
       }
       // Only the first worksheet is read.
       break;

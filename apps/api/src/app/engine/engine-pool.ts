@@ -1,6 +1,6 @@
 import { availableParallelism } from 'node:os';
 import { Piscina } from 'piscina';
-import type { AnalysisResult, AnalysisSpec } from '@tallyfit/engine';
+import type { AnalysisResult, AnalysisSpec, SegmentsInput, SegmentsResult } from '@tallyfit/engine';
 import { HttpError, unavailable } from '../http/http-error';
 import { engineLane, type EngineLane } from './engine-job-size';
 import { FairQueue } from './fair-queue';
@@ -21,10 +21,14 @@ export interface EnginePoolOptions {
   maxQueue?: number;
 }
 
+/** The worker's exported functions (engine-worker.ts). */
+type EngineTask = 'analyzeSpec' | 'analyzeSegmentsTask';
+
 interface Job {
-  spec: AnalysisSpec;
+  task: EngineTask;
+  input: unknown;
   owner: string;
-  resolve(result: AnalysisResult): void;
+  resolve(result: unknown): void;
   reject(error: unknown): void;
   waitTimer?: NodeJS.Timeout;
 }
@@ -77,7 +81,7 @@ export function createEnginePool(options: EnginePoolOptions): EngineRunner {
     const controller = new AbortController();
     const timer = setTimeout(() => controller.abort(), options.timeLimitMs);
     on.pool
-      .run(job.spec, { signal: controller.signal })
+      .run(job.input, { signal: controller.signal, name: job.task })
       .then((outcome) => job.resolve(unwrapOutcome(outcome as EngineTaskOutcome)))
       .catch((error: unknown) => {
         if (!controller.signal.aborted) return job.reject(error);
@@ -126,13 +130,18 @@ export function createEnginePool(options: EnginePoolOptions): EngineRunner {
     }, queueWaitLimitMs);
   };
 
+  const submit = <T>(task: EngineTask, input: unknown, laneName: EngineLane, run: EngineRunOptions): Promise<T> => {
+    if (closed) return Promise.reject(unavailable('shutting_down', 'the server is shutting down', 5));
+    return new Promise<T>((resolve, reject) => {
+      enqueue({ task, input, owner: run.owner ?? NO_OWNER, resolve: (result) => resolve(result as T), reject }, laneName);
+    });
+  };
+
   return {
-    analyze: (spec: AnalysisSpec, run: EngineRunOptions = {}): Promise<AnalysisResult> => {
-      if (closed) return Promise.reject(unavailable('shutting_down', 'the server is shutting down', 5));
-      return new Promise<AnalysisResult>((resolve, reject) => {
-        enqueue({ spec, owner: run.owner ?? NO_OWNER, resolve, reject }, engineLane(spec));
-      });
-    },
+    analyze: (spec: AnalysisSpec, run: EngineRunOptions = {}) => submit<AnalysisResult>('analyzeSpec', spec, engineLane(spec), run),
+    // A run per segment, each possibly with an exact test: always long work.
+    analyzeSegments: (input: SegmentsInput, run: EngineRunOptions = {}) =>
+      submit<SegmentsResult>('analyzeSegmentsTask', input, 'large', run),
     close: async () => {
       closed = true;
       for (const { queue } of Object.values(lanes)) {

@@ -1,8 +1,19 @@
-import { analyze, EngineInputError, type AnalysisResult, type AnalysisSpec, type InputIssue } from '@tallyfit/engine';
+import {
+  analyze,
+  analyzeSegments,
+  EngineInputError,
+  type AnalysisResult,
+  type AnalysisSpec,
+  type InputIssue,
+  type SegmentsInput,
+  type SegmentsResult,
+} from '@tallyfit/engine';
 
 /** Runs the engine for the API. The server uses a worker pool; tests may choose to run in-process. */
 export interface EngineRunner {
   analyze(spec: AnalysisSpec, options?: EngineRunOptions): Promise<AnalysisResult>;
+  /** every segment tested against one spec, the family adjusted (see the engine's analyzeSegments) */
+  analyzeSegments(input: SegmentsInput, options?: EngineRunOptions): Promise<SegmentsResult>;
   close(): Promise<void>;
 }
 
@@ -12,12 +23,11 @@ export interface EngineRunOptions {
 }
 
 /** What a worker sends back: a result, or the input problems the engine named. */
-export type EngineTaskOutcome = { ok: true; result: AnalysisResult } | { ok: false; issues: InputIssue[] };
+export type EngineTaskOutcome<T = AnalysisResult> = { ok: true; result: T } | { ok: false; issues: InputIssue[] };
 
-/** The work one task does, shared by the worker and the in-process runner. */
-export function runAnalysisTask(spec: unknown): EngineTaskOutcome {
+function outcomeOf<T>(work: () => T): EngineTaskOutcome<T> {
   try {
-    return { ok: true, result: analyze(spec as AnalysisSpec) };
+    return { ok: true, result: work() };
   } catch (error) {
     // Errors cross the thread boundary as plain objects, so input problems are sent as data.
     if (error instanceof EngineInputError) return { ok: false, issues: error.issues };
@@ -25,7 +35,16 @@ export function runAnalysisTask(spec: unknown): EngineTaskOutcome {
   }
 }
 
-export function unwrapOutcome(outcome: EngineTaskOutcome): AnalysisResult {
+/** The work one task does, shared by the worker and the in-process runner. */
+export function runAnalysisTask(spec: unknown): EngineTaskOutcome {
+  return outcomeOf(() => analyze(spec as AnalysisSpec));
+}
+
+export function runSegmentsTask(input: unknown): EngineTaskOutcome<SegmentsResult> {
+  return outcomeOf(() => analyzeSegments(input as SegmentsInput));
+}
+
+export function unwrapOutcome<T>(outcome: EngineTaskOutcome<T>): T {
   if (outcome.ok) return outcome.result;
   throw new EngineInputError(outcome.issues);
 }
@@ -38,6 +57,7 @@ export function unwrapOutcome(outcome: EngineTaskOutcome): AnalysisResult {
 export function inProcessEngine(): EngineRunner {
   return {
     analyze: async (spec) => unwrapOutcome(runAnalysisTask(spec)),
+    analyzeSegments: async (input) => unwrapOutcome(runSegmentsTask(input)),
     close: async () => undefined,
   };
 }

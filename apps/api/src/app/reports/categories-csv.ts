@@ -1,4 +1,4 @@
-import type { AnalysisResult } from '@tallyfit/engine';
+import type { AnalysisResult, SegmentsResult } from '@tallyfit/engine';
 
 /**
  * A label that a spreadsheet would run as a formula (it starts with = + - @, or a tab or carriage
@@ -43,6 +43,27 @@ export function categoriesCsv(result: AnalysisResult): string {
     number(row.pAdjusted),
     number(row.interval.low),
     number(row.interval.high),
+  ]);
+  return [header, ...rows].map((cells) => cells.join(',')).join('\r\n') + '\r\n';
+}
+
+/** The ranked segments as CSV, one row per segment, empty cells where a segment was not tested. */
+export function segmentsCsv(segments: SegmentsResult): string {
+  const header = ['rank', 'segment', 'n', 'test', 'statistic', 'df', 'p', 'adjusted p', 'adjustment', 'w', 'driven by', 'flag'];
+  const optional = (value: number | undefined) => (value === undefined ? '' : number(value));
+  const rows = segments.rows.map((row) => [
+    optional(row.rank),
+    field(guardFormula(row.segment)),
+    number(row.n),
+    row.test ?? '',
+    optional(row.statistic),
+    optional(row.df),
+    optional(row.p),
+    optional(row.pAdjusted),
+    segments.adjust,
+    optional(row.w),
+    field(guardFormula(row.drivers.map((driver) => `${driver.direction} ${driver.label}`).join('; '))),
+    field(row.flag?.message ?? ''),
   ]);
   return [header, ...rows].map((cells) => cells.join(',')).join('\r\n') + '\r\n';
 }

@@ -21,6 +21,9 @@ export function markdownReport(source: ReportSource, link?: string): string {
   lines.push('');
   if (source.notes?.trim()) lines.push('## Notes', '', source.notes.trim(), '');
   lines.push(result.report.markdown.trim(), '');
+  if (source.segments) {
+    lines.push(`## Segments by ${inline(source.segments.column)}`, '', source.segments.result.report.paragraph, '', source.segments.result.report.table, '');
+  }
   if (result.warnings.length) {
     lines.push('## Warnings from the engine', '');
     for (const warning of result.warnings) lines.push(`- ${warning.message}`);

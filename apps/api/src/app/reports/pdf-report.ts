@@ -1,5 +1,5 @@
 import PDFDocument from 'pdfkit';
-import { formatPValueAt } from '@tallyfit/engine';
+import { formatPValueAt, type SegmentsResult } from '@tallyfit/engine';
 import { formatNumber } from './report-numbers';
 import { drawObservedExpectedChart } from './pdf-bar-chart';
 import type { PdfFonts } from './pdf-fonts';
@@ -104,6 +104,8 @@ function writeReport(text: PdfText, source: ReportSource): void {
     ]),
   );
 
+  if (source.segments) writeSegments(text, source.segments.column, source.segments.result);
+
   text.heading('Method');
   text.paragraph(result.report.methods, { size: 9.5 });
   text.heading('Result');
@@ -121,4 +123,33 @@ function writeReport(text: PdfText, source: ReportSource): void {
     text.paragraph(`•  ${caution}`, { size: 9.5 }, { indent: 8 });
     doc.moveDown(0.2);
   }
+}
+
+/** The segments: the write-up paragraph, then the ranked table (flags as the last column). */
+function writeSegments(text: PdfText, column: string, segments: SegmentsResult): void {
+  text.heading(`Segments by ${column}`);
+  text.paragraph(segments.report.paragraph, { size: 9.5 });
+  drawTable(
+    text,
+    [
+      { title: 'Rank', share: 0.6, align: 'right' },
+      { title: 'Segment', share: 2.2 },
+      { title: 'N', share: 1.1, align: 'right' },
+      { title: 'Statistic', share: 1.1, align: 'right' },
+      { title: 'p', share: 1, align: 'right' },
+      { title: 'Adjusted p', share: 1.2, align: 'right' },
+      { title: 'w', share: 0.8, align: 'right' },
+      { title: 'Note', share: 2.4 },
+    ],
+    segments.rows.map((row) => [
+      row.rank === undefined ? '—' : String(row.rank),
+      row.segment,
+      formatNumber(row.n, 6),
+      row.statistic === undefined ? '—' : formatNumber(row.statistic, 4),
+      row.p === undefined ? '—' : formatNumber(row.p, 3),
+      row.pAdjusted === undefined ? '—' : formatNumber(row.pAdjusted, 3),
+      row.w === undefined ? '—' : formatNumber(row.w, 2),
+      row.flag ? (row.flag.code === 'too-small' ? 'too small for chi-square' : 'not tested') : row.significant ? 'departs' : '',
+    ]),
+  );
 }

@@ -1,4 +1,4 @@
-import { TEST_LABELS, type AnalysisResult, type TestName } from '@tallyfit/engine';
+import { TEST_LABELS, type AnalysisResult, type SegmentsResult, type TestName } from '@tallyfit/engine';
 
 /** Everything a report says about one stored analysis. */
 export interface ReportSource {
@@ -12,6 +12,8 @@ export interface ReportSource {
   engineVersion: string;
   notes: string | null;
   result: AnalysisResult;
+  /** the same test in each segment of a second column, when the analysis was split */
+  segments?: { column: string; result: SegmentsResult } | null;
 }
 
 /** The engine's own heading for a test key (a stored 0.1.x key is upgraded before it gets here). */

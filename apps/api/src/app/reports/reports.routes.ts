@@ -2,9 +2,9 @@ import type { Response } from 'express';
 import type { Knex } from 'knex';
 import { idParamsSchema } from '@tallyfit/contracts';
 import type { Config } from '../config';
-import { HttpError } from '../http/http-error';
+import { HttpError, notFound } from '../http/http-error';
 import { defineRoute, type RouteDefinition } from '../http/route-table';
-import { categoriesCsv } from './categories-csv';
+import { categoriesCsv, segmentsCsv } from './categories-csv';
 import { markdownReport } from './markdown-report';
 import { findPdfFonts, type PdfFonts } from './pdf-fonts';
 import { pdfReport } from './pdf-report';
@@ -66,6 +66,20 @@ export function reportsRoutes(db: Knex, config: Config): RouteDefinition[] {
       handler: async ({ params, user, res }) => {
         const source = await reportSourceFor(db, user, params.id);
         sendFile(res, categoriesCsv(source.result), 'text/csv; charset=utf-8', downloadName(source, 'csv'));
+      },
+    }),
+    defineRoute({
+      method: 'get',
+      path: '/analyses/:id/segments.csv',
+      access: 'analyses.read',
+      summary: 'The ranked segments as CSV: each segment’s N, test, statistic, p, adjusted p, w and flag (404 when the analysis has no segments)',
+      tag: 'reports',
+      request: { params: idParamsSchema },
+      responses: { 200: { description: 'the segments as CSV', contentType: 'text/csv' } },
+      handler: async ({ params, user, res }) => {
+        const source = await reportSourceFor(db, user, params.id);
+        if (!source.segments) throw notFound(`analysis ${params.id} was not split into segments`);
+        sendFile(res, segmentsCsv(source.segments.result), 'text/csv; charset=utf-8', downloadName(source, 'segments.csv'));
       },
     }),
   ];

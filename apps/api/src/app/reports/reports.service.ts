@@ -19,6 +19,7 @@ export async function reportSourceFor(db: Knex, caller: User, id: number): Promi
     engineVersion: analysis.engineVersion,
     notes: analysis.notes,
     result: analysis.result,
+    segments: analysis.segments && analysis.segmentColumn ? { column: analysis.segmentColumn, result: analysis.segments } : null,
   };
 }
 

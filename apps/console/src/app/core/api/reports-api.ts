@@ -4,15 +4,16 @@ import type { Observable } from 'rxjs';
 import { pageHandlesErrors } from '../notify/page-handles-errors';
 
 /** The files a saved analysis can be downloaded as. */
-export type ReportFormat = 'markdown' | 'pdf' | 'csv';
+export type ReportFormat = 'markdown' | 'pdf' | 'csv' | 'segments';
 
 const REPORT_FILES: Record<ReportFormat, string> = {
   markdown: 'report.md',
   pdf: 'report.pdf',
   csv: 'categories.csv',
+  segments: 'segments.csv',
 };
 
-/** Reports over the API: the write-up as Markdown or PDF, and the per-category table as CSV. */
+/** Reports over the API: the write-up as Markdown or PDF, the per-category table and the ranked segments as CSV. */
 @Injectable({ providedIn: 'root' })
 export class ReportsApi {
   private readonly http = inject(HttpClient);

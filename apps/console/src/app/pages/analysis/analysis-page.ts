@@ -24,6 +24,7 @@ import { CategoriesTable } from './categories-table';
 import { mergedRun, withExactTest } from './category-merge';
 import { headlineFor } from './headline';
 import { ResultCharts } from './result-charts';
+import { SegmentsPanel } from './segments-panel';
 import { ShareDialog, type ShareDialogData } from './share-dialog';
 import { testRows } from './test-rows';
 import { WriteUp } from './write-up';
@@ -52,6 +53,7 @@ interface RerunNote {
     AssumptionCheckPanel,
     CategoriesTable,
     ResultCharts,
+    SegmentsPanel,
     WriteUp,
   ],
   templateUrl: './analysis-page.html',

@@ -38,6 +38,11 @@ describe('analysisRequest on an uploaded dataset', () => {
       spec: { observed: uploaded.observed, hypothesis: { kind: 'equal' } },
     });
   });
+
+  it('adds the segment column and the adjustment when a split was chosen', () => {
+    const split = { ...uploaded, segments: { column: 'line', adjust: 'benjamini-hochberg' as const } };
+    expect(analysisRequest('Defects by line', null, split, { kind: 'equal' }, {})).toMatchObject({ segmentColumn: 'line', segmentAdjust: 'benjamini-hochberg' });
+  });
 });
 
 describe('suggestedTitle', () => {

@@ -16,7 +16,13 @@ export function analysisRequest(
   options: AnalysisOptions,
 ): CreateAnalysisRequest {
   if (data.datasetId !== undefined && data.selection) {
-    return { title: title.trim(), datasetId: data.datasetId, selection: data.selection, spec: { hypothesis, ...options } };
+    return {
+      title: title.trim(),
+      datasetId: data.datasetId,
+      selection: data.selection,
+      spec: { hypothesis, ...options },
+      ...(data.segments ? { segmentColumn: data.segments.column, segmentAdjust: data.segments.adjust } : {}),
+    };
   }
   return {
     title: title.trim(),

@@ -1,5 +1,6 @@
 import type { CountSelection } from '@tallyfit/contracts';
 import type { ParsedCounts } from './pasted-counts';
+import type { SegmentChoice } from './segment-choice';
 
 export type DataSource = 'upload' | 'paste' | 'type';
 
@@ -12,6 +13,8 @@ export interface DataChoice {
   datasetName?: string;
   /** the column choice that turned the dataset's rows into these counts */
   selection?: CountSelection;
+  /** a second column of the dataset to split the counts by, tested segment by segment */
+  segments?: SegmentChoice;
 }
 
 export function totalOf(counts: readonly number[]): number {

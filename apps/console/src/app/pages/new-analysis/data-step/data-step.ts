@@ -57,6 +57,7 @@ export class DataStep {
               datasetId: uploaded.datasetId,
               datasetName: uploaded.datasetName,
               selection: uploaded.selection,
+              ...(uploaded.segments ? { segments: uploaded.segments } : {}),
             }
           : null;
       }

@@ -1,5 +1,5 @@
 import { DecimalPipe, PercentPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, DestroyRef, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, DestroyRef, inject, input, output, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -9,6 +9,7 @@ import { of, type Subscription } from 'rxjs';
 import { apiErrorMessage } from '../../../core/api/api-error-message';
 import { DatasetsApi } from '../../../core/api/datasets-api';
 import { ColumnPicker } from './column-picker';
+import { SegmentChoicePicker, type SegmentChoice } from './segment-choice';
 import type { ParsedCounts } from './pasted-counts';
 import { ACCEPTED_EXTENSIONS, uploadFileProblem } from './upload-file-check';
 
@@ -18,6 +19,8 @@ export interface DatasetCounts {
   datasetName: string;
   selection: CountSelection;
   counts: ParsedCounts;
+  /** a second column to split the counts by, when one was chosen */
+  segments?: SegmentChoice;
 }
 
 type UploadState =
@@ -33,7 +36,7 @@ const sameSelection = (a: CountSelection, b: CountSelection): boolean => JSON.st
  */
 @Component({
   selector: 'tf-dataset-upload',
-  imports: [DecimalPipe, PercentPipe, MatButtonModule, MatIconModule, MatProgressBarModule, ColumnPicker],
+  imports: [DecimalPipe, PercentPipe, MatButtonModule, MatIconModule, MatProgressBarModule, ColumnPicker, SegmentChoicePicker],
   templateUrl: './dataset-upload.html',
   styleUrl: './dataset-upload.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -53,6 +56,13 @@ export class DatasetUpload {
   protected readonly counting = signal(false);
   protected readonly counts = signal<CategoryCounts | null>(null);
   private sending: Subscription | null = null;
+  private segments: SegmentChoice | null = null;
+  /** Segments are offered once raw rows are counted: the dataset's columns and the category column. */
+  protected readonly segmentsOffer = computed(() => {
+    const state = this.state();
+    const selection = this.counts()?.selection;
+    return state.step === 'stored' && selection?.shape === 'raw' ? { columns: state.dataset.columnNames, categoryColumn: selection.column } : null;
+  });
 
   constructor() {
     this.destroyRef.onDestroy(() => this.sending?.unsubscribe());
@@ -140,6 +150,12 @@ export class DatasetUpload {
     this.setCounts(null, null);
   }
 
+  protected chooseSegments(segments: SegmentChoice | null): void {
+    this.segments = segments;
+    const state = this.state();
+    if (state.step === 'stored') this.setCounts(state.dataset, this.counts());
+  }
+
   private setCounts(dataset: DatasetRecord | null, counts: CategoryCounts | null): void {
     this.counts.set(counts);
     this.countsChange.emit(
@@ -149,6 +165,7 @@ export class DatasetUpload {
             datasetName: dataset.fileName,
             selection: counts.selection,
             counts: { labels: counts.labels, counts: counts.counts },
+            ...(this.segments && counts.selection.shape === 'raw' ? { segments: this.segments } : {}),
           }
         : null,
     );

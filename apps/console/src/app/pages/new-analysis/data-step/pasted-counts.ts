@@ -1,23 +1,43 @@
 /**
  * Reads pasted two-column text (a category and its count per line) into labels and counts.
- * Accepts tabs (as copied from a spreadsheet), commas, semicolons or runs of spaces between the
- * columns; a first line whose second column is not a number is taken as a heading and skipped.
+ * Accepts tabs (as copied from a spreadsheet), semicolons, commas or runs of spaces between the
+ * columns; a first line whose second column holds no digit is taken as a heading and skipped.
+ * Counts may carry thousands separators ("1,234", "1.234", "1 234"): they are read as one column
+ * by `readCountColumn` (contracts), which says how it read them and names ambiguous values.
  */
+import { readCount, readCountColumn } from '@tallyfit/contracts';
+
 export interface ParsedCounts {
   labels: string[];
   counts: number[];
 }
 
-export type PastedCountsOutcome = { ok: true; data: ParsedCounts; skippedHeading: boolean } | { ok: false; errors: string[] };
+export type PastedCountsOutcome =
+  | { ok: true; data: ParsedCounts; skippedHeading: boolean; /** how separators in the counts were read */ decisions: string[] }
+  | { ok: false; errors: string[] };
 
-const WHOLE_NUMBER = /^\d+$/;
+const readable = (text: string) => {
+  const reading = readCount(text);
+  return reading.ok || reading.problem === 'ambiguous';
+};
 
+/** The label and the count text of one line, or null when there is only one column. */
 function splitLine(line: string): [string, string] | null {
-  for (const separator of ['\t', ';', ',']) {
+  const quotedCount = /^(.*?)\s*[\t;,]\s*"([^"]*)"$/.exec(line);
+  if (quotedCount) return [quotedCount[1], quotedCount[2]];
+  for (const separator of ['\t', ';']) {
     const at = line.lastIndexOf(separator);
     if (at > 0) return [line.slice(0, at), line.slice(at + 1)];
   }
-  const spaced = /^(.*\S)\s+(\S+)$/.exec(line);
+  if (line.includes(',')) {
+    // The longest tail that reads as a count, so "red,1,234" is red and 1,234 while "North, upper floor,12" keeps its comma.
+    for (let at = line.indexOf(','); at > 0; at = line.indexOf(',', at + 1)) {
+      if (readable(line.slice(at + 1).trim())) return [line.slice(0, at), line.slice(at + 1)];
+    }
+    const last = line.lastIndexOf(',');
+    if (last > 0) return [line.slice(0, last), line.slice(last + 1)];
+  }
+  const spaced = /^(.*?\S)\s+(\d{1,3}(?:[ \u00a0\u202f]\d{3})+|\S+)$/.exec(line);
   return spaced ? [spaced[1], spaced[2]] : null;
 }
 
@@ -31,8 +51,7 @@ export function parsePastedCounts(text: string): PastedCountsOutcome {
   if (lines.length === 0) return { ok: false, errors: ['Paste at least two lines, each a category and its count.'] };
 
   const errors: string[] = [];
-  const labels: string[] = [];
-  const counts: number[] = [];
+  const rows: Array<{ label: string; countText: string; number: number }> = [];
   const seen = new Map<string, number>();
   let skippedHeading = false;
   lines.forEach(({ line, number }, position) => {
@@ -42,13 +61,9 @@ export function parsePastedCounts(text: string): PastedCountsOutcome {
       return;
     }
     const label = unquote(parts[0]);
-    const countText = unquote(parts[1]).replace(/[\s_]/g, '');
-    if (!WHOLE_NUMBER.test(countText)) {
-      if (position === 0 && !/\d/.test(countText)) {
-        skippedHeading = true;
-        return;
-      }
-      errors.push(`Line ${number}: the count "${parts[1].trim()}" is not a whole number of 0 or more.`);
+    const countText = unquote(parts[1]);
+    if (position === 0 && !/\d/.test(countText)) {
+      skippedHeading = true;
       return;
     }
     if (label.length === 0) {
@@ -61,11 +76,22 @@ export function parsePastedCounts(text: string): PastedCountsOutcome {
       return;
     }
     seen.set(label, number);
-    labels.push(label);
-    counts.push(Number(countText));
+    rows.push({ label, countText, number });
   });
-  if (errors.length > 0) return { ok: false, errors };
+
+  const reading = readCountColumn(rows.map((row) => row.countText));
+  for (const { index, problem, message } of reading.problems) {
+    const { number, countText } = rows[index];
+    errors.push(
+      problem === 'ambiguous' ? `Line ${number}: the count "${countText}" ${message}.` : `Line ${number}: the count "${countText}" is not a whole number of 0 or more.`,
+    );
+  }
+  if (errors.length > 0) return { ok: false, errors: errors.sort((a, b) => lineOf(a) - lineOf(b)) };
+  const labels = rows.map((row) => row.label);
+  const counts = reading.values as number[];
   if (labels.length < 2) return { ok: false, errors: [`At least two categories are needed; found ${labels.length}.`] };
   if (counts.every((count) => count === 0)) return { ok: false, errors: ['Every count is 0: at least one observation is needed.'] };
-  return { ok: true, data: { labels, counts }, skippedHeading };
+  return { ok: true, data: { labels, counts }, skippedHeading, decisions: reading.decisions };
 }
+
+const lineOf = (message: string) => Number(/^Line (\d+)/.exec(message)?.[1] ?? 0);
