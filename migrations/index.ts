@@ -9,6 +9,7 @@ import * as createApiAndRefreshTokens from './20261202-0007-create-api-and-refre
 import * as createDatasets from './20261202-0020-create-datasets';
 import * as createShares from './20261202-0021-create-shares';
 import * as indexAnalysisHistory from './20261202-0022-index-analysis-history';
+import * as createNotifications from './20261202-0030-create-notifications';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -30,6 +31,7 @@ const migrations: ReadonlyArray<readonly [name: string, migration: Migration]> =
   ['20261202-0020-create-datasets', createDatasets],
   ['20261202-0021-create-shares', createShares],
   ['20261202-0022-index-analysis-history', indexAnalysisHistory],
+  ['20261202-0030-create-notifications', createNotifications],
 ];
 
 export const migrationSource: Knex.MigrationSource<Migration> = {

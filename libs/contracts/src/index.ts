@@ -13,3 +13,5 @@ export * from './lib/reviews';
 export * from './lib/datasets';
 export * from './lib/shares';
 export * from './lib/capabilities';
+export * from './lib/review-state';
+export * from './lib/notifications';

@@ -22,6 +22,7 @@ import { sharesRoutes } from './shares/shares.routes';
 import { apiTokensRoutes } from './tokens/api-tokens.routes';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { reviewsRoutes } from './reviews/reviews.routes';
+import { notificationsRoutes } from './notifications/notifications.routes';
 import { studiesRoutes } from './studies/studies.routes';
 import { API_PREFIX, mountRoutes, type RouteDefinition } from './http/route-table';
 
@@ -42,14 +43,15 @@ export interface TallyfitApp {
 }
 
 /** Every resource's routes. A new resource is added here and nowhere else. */
-function allRoutes({ config, db, engine, mail }: AppContext): RouteDefinition[] {
+function allRoutes({ config, db, engine, mail }: AppContext, logger: Logger): RouteDefinition[] {
   const routes: RouteDefinition[] = [
     ...healthRoutes(db),
     ...authRoutes(db, config),
     ...peopleRoutes(db),
     ...apiTokensRoutes(db),
     ...analysesRoutes(db, config, engine),
-    ...reviewsRoutes(db),
+    ...reviewsRoutes(db, { mail, publicUrl: config.publicUrl, logger }),
+    ...notificationsRoutes(db),
     ...engineRoutes(engine),
     ...studiesRoutes(db),
     ...auditRoutes(db),
@@ -94,7 +96,7 @@ export function createApp(context: AppContext): TallyfitApp {
   app.use(cors({ origin: config.consoleOrigin ?? false }));
   app.use(express.json({ limit: '1mb' }));
 
-  const routes = allRoutes(context);
+  const routes = allRoutes(context, logger);
   mountRoutes(app, routes, createAuthenticate(db, config.jwtSecret));
   app.use('/api', apiNotFound);
   if (config.consoleDir) serveConsole(app, config.consoleDir);

@@ -11,6 +11,8 @@ export interface ReportSource {
   createdAt: string;
   engineVersion: string;
   notes: string | null;
+  /** The review state and the decision behind it, in the words the result page uses (`reviewStateLines`). */
+  reviewLines: string[];
   result: AnalysisResult;
 }
 

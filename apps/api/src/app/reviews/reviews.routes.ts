@@ -9,11 +9,13 @@ import {
   reviewSchema,
   signOffRequestSchema,
   submitForReviewRequestSchema,
+  withdrawSubmissionRequestSchema,
 } from '@tallyfit/contracts';
 import { defineRoute, type RouteDefinition } from '../http/route-table';
+import type { NotificationMail } from '../notifications/notifications.service';
 import { addComment, decideReview, listComments, listReviews } from './reviews.service';
 
-export function reviewsRoutes(db: Knex): RouteDefinition[] {
+export function reviewsRoutes(db: Knex, delivery: NotificationMail): RouteDefinition[] {
   return [
     defineRoute({
       method: 'post',
@@ -24,7 +26,19 @@ export function reviewsRoutes(db: Knex): RouteDefinition[] {
       request: { params: idParamsSchema, body: submitForReviewRequestSchema },
       responses: { 200: analysisRecordSchema },
       handler: async ({ params, body, user, res }) => {
-        res.json(await decideReview(db, user, params.id, 'submitted', body.comment));
+        res.json(await decideReview(db, user, params.id, 'submitted', body.comment, delivery));
+      },
+    }),
+    defineRoute({
+      method: 'post',
+      path: '/analyses/:id/withdraw',
+      access: 'analyses.run',
+      summary: 'Withdraw a submission while it waits for review, back to draft (its author)',
+      tag: 'reviews',
+      request: { params: idParamsSchema, body: withdrawSubmissionRequestSchema },
+      responses: { 200: analysisRecordSchema },
+      handler: async ({ params, body, user, res }) => {
+        res.json(await decideReview(db, user, params.id, 'withdrawn', body.comment, delivery));
       },
     }),
     defineRoute({
@@ -36,7 +50,7 @@ export function reviewsRoutes(db: Knex): RouteDefinition[] {
       request: { params: idParamsSchema, body: signOffRequestSchema },
       responses: { 200: analysisRecordSchema },
       handler: async ({ params, body, user, res }) => {
-        res.json(await decideReview(db, user, params.id, 'signed_off', body.comment));
+        res.json(await decideReview(db, user, params.id, 'signed_off', body.comment, delivery));
       },
     }),
     defineRoute({
@@ -48,7 +62,7 @@ export function reviewsRoutes(db: Knex): RouteDefinition[] {
       request: { params: idParamsSchema, body: returnAnalysisRequestSchema },
       responses: { 200: analysisRecordSchema },
       handler: async ({ params, body, user, res }) => {
-        res.json(await decideReview(db, user, params.id, 'returned', body.comment));
+        res.json(await decideReview(db, user, params.id, 'returned', body.comment, delivery));
       },
     }),
     defineRoute({
