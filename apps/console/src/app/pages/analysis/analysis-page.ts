@@ -13,7 +13,6 @@ import { combineLatest, switchMap } from 'rxjs';
 import { AnalysesApi } from '../../core/api/analyses-api';
 import { apiErrorMessage } from '../../core/api/api-error-message';
 import { ReportsApi, type ReportFormat } from '../../core/api/reports-api';
-import { ReviewsApi } from '../../core/api/reviews-api';
 import { AuthSession } from '../../core/auth/auth-session';
 import { can } from '@tallyfit/contracts';
 import { saveFile } from '../../core/files/save-file';
@@ -26,7 +25,9 @@ import { headlineFor } from './headline';
 import { ResultCharts } from './result-charts';
 import { ShareDialog, type ShareDialogData } from './share-dialog';
 import { testRows } from './test-rows';
+import { ReviewPanel } from './review-panel';
 import { WriteUp } from './write-up';
+import { CommentsThread } from '../../shared/comments-thread/comments-thread';
 
 /** What a re-run changed, kept for the version it produced. */
 interface RerunNote {
@@ -52,6 +53,8 @@ interface RerunNote {
     AssumptionCheckPanel,
     CategoriesTable,
     ResultCharts,
+    ReviewPanel,
+    CommentsThread,
     WriteUp,
   ],
   templateUrl: './analysis-page.html',
@@ -61,7 +64,6 @@ interface RerunNote {
 export class AnalysisPage {
   private readonly api = inject(AnalysesApi);
   private readonly reports = inject(ReportsApi);
-  private readonly reviews = inject(ReviewsApi);
   private readonly dialog = inject(MatDialog);
   private readonly router = inject(Router);
   private readonly announcer = inject(LiveAnnouncer);
@@ -90,10 +92,8 @@ export class AnalysisPage {
   protected readonly canRun = computed(() => can(this.user()?.role, 'analyses.run'));
   /** The API lets everyone but viewers e-mail an analysis they can read. */
   protected readonly canShare = computed(() => can(this.user()?.role, 'analyses.share'));
-  protected readonly canSubmit = computed(() => {
-    const analysis = this.analysis();
-    return !!analysis && this.canRun() && analysis.isLatest && (analysis.status === 'draft' || analysis.status === 'returned');
-  });
+  /** Counts review decisions made on this page, so the panel and the thread read the history again. */
+  protected readonly reviewKey = signal(0);
   protected readonly fileStem = computed(() => `analysis-${this.id()}`);
 
   protected readonly busy = signal<string | null>(null);
@@ -138,20 +138,10 @@ export class AnalysisPage {
     });
   }
 
-  protected submitForReview(analysis: AnalysisRecord): void {
-    this.busy.set('Submitting…');
-    this.problem.set(null);
-    this.reviews.submit(analysis.id).subscribe({
-      next: () => {
-        this.busy.set(null);
-        void this.announcer.announce('Submitted for review.');
-        this.reload.update((count) => count + 1);
-      },
-      error: (error: unknown) => {
-        this.busy.set(null);
-        this.problem.set(apiErrorMessage(error));
-      },
-    });
+  /** A review decision or an edit in the review panel: read the analysis and its history again. */
+  protected reviewChanged(): void {
+    this.reviewKey.update((count) => count + 1);
+    this.reload.update((count) => count + 1);
   }
 
   protected share(analysis: AnalysisRecord): void {

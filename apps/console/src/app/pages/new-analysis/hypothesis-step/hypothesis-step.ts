@@ -8,6 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { distributionFamilies, type DistributionFamily, type Hypothesis } from '@tallyfit/engine';
+import { hypothesisDraftOf } from '../prefill';
 import { totalOf } from '../data-step/data-choice';
 import type { ParsedCounts } from '../data-step/pasted-counts';
 import {
@@ -41,6 +42,9 @@ export class HypothesisStep {
 
   readonly observed = input<ParsedCounts | null>(null);
   readonly hypothesisChange = output<Hypothesis | null>();
+  /** A hypothesis to start from (change and re-run), filled in once the categories are known. */
+  readonly initial = input<Hypothesis | null>(null);
+  private initialApplied = false;
 
   protected readonly families = distributionFamilies;
   protected readonly familyNames = FAMILY_NAMES;
@@ -111,6 +115,17 @@ export class HypothesisStep {
         const values = this.form.controls.values;
         while (values.length < k) values.push(this.fb.control<number | null>(null));
         while (values.length > k) values.removeAt(values.length - 1);
+      });
+    });
+    // After the value fields exist: one per category, so per-category values have somewhere to go.
+    effect(() => {
+      const initial = this.initial();
+      const k = this.labels().length;
+      if (!initial || this.initialApplied || k === 0) return;
+      untracked(() => {
+        const draft = hypothesisDraftOf(initial);
+        this.form.patchValue({ ...draft, values: draft.values.length === k ? draft.values : [] });
+        this.initialApplied = true;
       });
     });
     effect(() => {
