@@ -10,6 +10,7 @@ import * as createDatasets from './20261202-0020-create-datasets';
 import * as createShares from './20261202-0021-create-shares';
 import * as indexAnalysisHistory from './20261202-0022-index-analysis-history';
 import * as createNotifications from './20261202-0030-create-notifications';
+import * as sessionsAndSignInAttempts from './20261202-0040-sessions-and-sign-in-attempts';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -32,6 +33,7 @@ const migrations: ReadonlyArray<readonly [name: string, migration: Migration]> =
   ['20261202-0021-create-shares', createShares],
   ['20261202-0022-index-analysis-history', indexAnalysisHistory],
   ['20261202-0030-create-notifications', createNotifications],
+  ['20261202-0040-sessions-and-sign-in-attempts', sessionsAndSignInAttempts],
 ];
 
 export const migrationSource: Knex.MigrationSource<Migration> = {

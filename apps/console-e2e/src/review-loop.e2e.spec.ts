@@ -67,7 +67,9 @@ describe('the review loop: run, submit, return, change, re-run, resubmit, sign o
   });
 
   it('the lead lands on the review queue, sees the bell count, and opens the work from the bell', async () => {
-    await signInAs(lead, server.url, 'lead', '/');
+    await signInAs(lead, server.url, 'lead', '/studies');
+    // Home, for a lead, is the review queue rather than an empty list of their own analyses.
+    await lead.getByRole('link', { name: 'Tallyfit home' }).click();
     await lead.getByRole('heading', { name: 'To review' }).waitFor();
     expect(new URL(lead.url()).pathname).toBe('/reviews');
     await lead.getByRole('link', { name: TITLE }).waitFor();

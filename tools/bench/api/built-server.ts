@@ -13,7 +13,7 @@ export interface BuiltServer {
   baseUrl: string;
   dataDir: string;
   /** a bearer token for the demo person of a role */
-  token(role: 'admin' | 'analyst'): Promise<string>;
+  token(role: 'admin' | 'lead' | 'analyst' | 'viewer'): Promise<string>;
   stop(): Promise<void>;
 }
 

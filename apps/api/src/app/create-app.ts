@@ -25,6 +25,7 @@ import { reviewsRoutes } from './reviews/reviews.routes';
 import { notificationsRoutes } from './notifications/notifications.routes';
 import { studiesRoutes } from './studies/studies.routes';
 import { API_PREFIX, mountRoutes, type RouteDefinition } from './http/route-table';
+import { WriteHealth } from './storage/write-health';
 
 export interface AppContext {
   config: Config;
@@ -43,9 +44,9 @@ export interface TallyfitApp {
 }
 
 /** Every resource's routes. A new resource is added here and nowhere else. */
-function allRoutes({ config, db, engine, mail }: AppContext, logger: Logger): RouteDefinition[] {
+function allRoutes({ config, db, engine, mail }: AppContext, writeHealth: WriteHealth, logger: Logger): RouteDefinition[] {
   const routes: RouteDefinition[] = [
-    ...healthRoutes(db),
+    ...healthRoutes(db, writeHealth),
     ...authRoutes(db, config),
     ...peopleRoutes(db),
     ...apiTokensRoutes(db),
@@ -73,7 +74,8 @@ export function createApp(context: AppContext): TallyfitApp {
   const logger = context.logger ?? pino({ level: config.logLevel });
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // Forwarded headers are believed only from the proxies TRUST_PROXY names (none by default).
+  app.set('trust proxy', config.trustProxy);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -95,11 +97,19 @@ export function createApp(context: AppContext): TallyfitApp {
   );
   app.use(cors({ origin: config.consoleOrigin ?? false }));
   app.use(express.json({ limit: '1mb' }));
+  // API answers carry tokens and personal data: no browser or proxy may keep a copy.
+  app.use(API_PREFIX, (_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
+  const writeHealth = new WriteHealth(config.dataDir);
+  app.use(writeHealth.noteSuccesses);
 
-  const routes = allRoutes(context, logger);
+  const routes = allRoutes(context, writeHealth, logger);
   mountRoutes(app, routes, createAuthenticate(db, config.jwtSecret));
   app.use('/api', apiNotFound);
   if (config.consoleDir) serveConsole(app, config.consoleDir);
+  app.use(writeHealth.noteFailures);
   app.use(errorHandler);
   return { app, routes };
 }

@@ -43,7 +43,7 @@ export async function getReadableAnalysis(db: Knex, caller: User, id: number): P
  */
 export async function createAnalysis(db: Knex, engine: EngineRunner, author: User, input: NewAnalysis): Promise<AnalysisRecord> {
   if (input.studyId !== undefined) await requireStudyContributor(db, author, input.studyId);
-  const result = await engine.analyze(input.spec);
+  const result = await engine.analyze(input.spec, { owner: String(author.id) });
   const id = await db.transaction(async (trx) => {
     const newId = await insertWithAudit(
       trx,
@@ -85,14 +85,27 @@ async function requireChangeable(db: Knex, caller: User, id: number): Promise<An
   return analysis;
 }
 
-/** Edits title and notes; the result stays as it was. */
+/**
+ * A signed-off analysis is the record a reviewer vouched for: it stays as it was signed. Changes
+ * go into a new version (a re-run), which starts as a draft and needs its own review.
+ */
+function requireNotSignedOff(analysis: AnalysisRecord, what: string): void {
+  if (analysis.status === 'signed_off') {
+    throw conflict(`analysis ${analysis.id} is signed off, so it cannot be ${what}; re-run it to make a new version, which needs its own review`);
+  }
+}
+
+/** Edits title and notes; the result stays as it was. Signed-off analyses are frozen. */
 export async function updateAnalysis(db: Knex, caller: User, id: number, request: UpdateAnalysisRequest): Promise<AnalysisRecord> {
   const before = await requireChangeable(db, caller, id);
+  requireNotSignedOff(before, 'edited');
   const changes: Record<string, unknown> = {};
   if (request.title !== undefined) changes['title'] = request.title;
   if (request.notes !== undefined) changes['notes'] = request.notes;
   await db.transaction(async (trx) => {
-    await trx('analyses').where({ id }).update({ ...changes, updated_at: now(trx) });
+    // Guarded by the status, so a sign-off racing this edit cannot be followed by the edit.
+    const edited = await trx('analyses').where({ id }).whereNot({ status: 'signed_off' }).update({ ...changes, updated_at: now(trx) });
+    if (edited !== 1) throw conflict(`analysis ${id} was signed off meanwhile, so it cannot be edited; re-run it to make a new version`);
     await recordAudit(trx, {
       actorId: caller.id,
       action: 'update',
@@ -122,7 +135,7 @@ export async function rerunAnalysis(
   if (!previous.isLatest) throw conflict(`analysis ${id} has a newer version; re-run the latest one`);
   if (previous.study) await requireStudyContributor(db, caller, previous.study.id);
   const nextSpec = spec ?? previous.spec;
-  const result = await engine.analyze(nextSpec);
+  const result = await engine.analyze(nextSpec, { owner: String(caller.id) });
   const newId = await db.transaction(async (trx) => {
     // Only one re-run of a version may win: the update claims the version, a racing one finds nothing to claim.
     const claimed = await trx('analyses').where({ id, is_latest: true }).update({ is_latest: false });
@@ -160,25 +173,40 @@ export async function rerunAnalysis(
   return { analysis, changes: compareRuns(previous, { engineVersion: analysis.engineVersion, spec: nextSpec, result }) };
 }
 
-/** Soft-deletes an analysis with all its versions; only its author or an admin may. The audit trail keeps it. */
+/**
+ * Soft-deletes an analysis with all its versions; only its author or an admin may, and when any
+ * version was signed off, only an admin (a signed-off record does not vanish at its author's
+ * wish). The audit event counts the versions actually deleted. The audit trail keeps it all.
+ */
 export async function deleteAnalysis(db: Knex, caller: User, id: number): Promise<void> {
   const analysis = await getReadableAnalysis(db, caller, id);
   if (caller.role !== 'admin' && analysis.author.id !== caller.id) {
     throw forbidden('only its author or an admin may delete an analysis');
   }
   await db.transaction(async (trx) => {
-    await trx('analyses')
-      .where({ series_id: analysis.seriesId })
-      .whereNull('deleted_at')
-      .update({ deleted_at: now(trx), deleted_by: caller.id });
+    const series = trx('analyses').where({ series_id: analysis.seriesId }).whereNull('deleted_at');
+    const signedOff = await series.clone().where({ status: 'signed_off' }).orderBy('version').pluck('version');
+    if (signedOff.length && caller.role !== 'admin') {
+      throw conflict(
+        `analysis ${id} has a signed-off version (version ${signedOff.join(', ')}), so only an admin may delete it; ask an admin, who will be named in the audit trail`,
+      );
+    }
+    const deleted = await series.clone().update({ deleted_at: now(trx), deleted_by: caller.id });
     await recordAudit(trx, {
       actorId: caller.id,
       action: 'delete',
       entityType: 'analysis',
       entityId: id,
       studyId: analysis.study?.id ?? null,
-      summary: `deleted analysis "${analysis.title}" (all ${analysis.version} version${analysis.version === 1 ? '' : 's'})`,
-      before: { title: analysis.title, status: analysis.status, seriesId: analysis.seriesId, p: analysis.result.conclusion.p },
+      summary: `deleted analysis "${analysis.title}" (all ${deleted} version${deleted === 1 ? '' : 's'}${signedOff.length ? `, signed off: version ${signedOff.join(', ')}` : ''})`,
+      before: {
+        title: analysis.title,
+        status: analysis.status,
+        seriesId: analysis.seriesId,
+        versions: deleted,
+        signedOffVersions: signedOff,
+        p: analysis.result.conclusion.p,
+      },
     });
   });
 }

@@ -17,7 +17,7 @@ export function authRoutes(db: Knex, config: AuthConfig): RouteDefinition[] {
       summary: 'Sign in with e-mail and password; returns a short-lived access token and a refresh token',
       request: { body: loginRequestSchema },
       responses: { 200: loginResponseSchema },
-      before: [loginRateLimit(config.loginAttemptsPer15Minutes)],
+      before: [loginRateLimit(db, config.loginAttemptsPer15Minutes)],
       handler: async ({ body, res }) => {
         res.json(await signIn(db, config, body.email, body.password));
       },
@@ -37,7 +37,7 @@ export function authRoutes(db: Knex, config: AuthConfig): RouteDefinition[] {
       method: 'post',
       path: '/auth/logout',
       access: 'public',
-      summary: 'Sign out: the refresh token stops working (the access token expires on its own shortly)',
+      summary: 'Sign out: the refresh token stops working and the person’s access tokens end at once (other sessions renew theirs)',
       request: { body: refreshRequestSchema },
       responses: { 204: { description: 'signed out' } },
       handler: async ({ body, res }) => {

@@ -4,7 +4,7 @@ import { Passport } from 'passport';
 import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
 import { ownerOfApiToken } from '../tokens/api-tokens.service';
 import { unauthorized } from '../http/http-error';
-import { JWT_ALGORITHM, type AccessTokenClaims } from './access-token';
+import { JWT_ALGORITHM, tokenIssuedAtMs, type AccessTokenClaims } from './access-token';
 import { API_TOKEN_PREFIX } from '../identity/token-hash';
 import { findUserById, publicUser } from '../identity/users.service';
 
@@ -12,7 +12,8 @@ import { findUserById, publicUser } from '../identity/users.service';
  * Builds the bearer check for one app instance (its own Passport, so test apps with different
  * secrets never share state). A bearer starting with `tf_` is a personal API token and acts with
  * its owner's role; anything else must be a signed access JWT. The person is looked up on every
- * request, so a disabled account or a changed role takes effect at once.
+ * request, so a disabled account, a changed role, a sign-out or a password change (which end the
+ * access tokens issued before them) take effect at once, on every server sharing the database.
  */
 export function createAuthenticate(db: Knex, jwtSecret: string): RequestHandler {
   const passport = new Passport();
@@ -26,7 +27,10 @@ export function createAuthenticate(db: Knex, jwtSecret: string): RequestHandler 
       },
       (claims: AccessTokenClaims, done: (error: unknown, user?: Express.User | false) => void) => {
         findUserById(db, Number(claims.sub))
-          .then((user) => done(null, user && !user.disabled ? publicUser(user) : false))
+          .then((user) => {
+            const current = user && !user.disabled && tokenIssuedAtMs(claims) >= (user.sessionsValidAfterMs ?? 0);
+            done(null, current ? publicUser(user) : false);
+          })
           .catch(done);
       },
     ),

@@ -54,8 +54,11 @@ describe('sessions: refresh, sign-out, password change, rate limit', () => {
 
     await ctx.as('viewer').post('/auth/password', { currentPassword: TEST_PASSWORD, newPassword: 'a brand new secret' }).expect(204);
     expect((await refresh(session.refreshToken)).status).toBe(401);
-    expect((await login('viewer@test.local', 'a brand new secret')).status).toBe(200);
-    await ctx.as('viewer').post('/auth/password', { currentPassword: 'a brand new secret', newPassword: TEST_PASSWORD }).expect(204);
+    // This session's access token ended with the change too: sign in again to change it back.
+    expect((await ctx.as('viewer').get('/auth/me')).status).toBe(401);
+    const fresh = await login('viewer@test.local', 'a brand new secret');
+    expect(fresh.status).toBe(200);
+    await ctx.as(fresh.body.accessToken).post('/auth/password', { currentPassword: 'a brand new secret', newPassword: TEST_PASSWORD }).expect(204);
   });
 
   it('records sign-ins and failed sign-ins in the audit trail', async () => {
@@ -71,9 +74,9 @@ describe('sessions: refresh, sign-out, password change, rate limit', () => {
     const limited = await login(email, 'guess');
     expect(limited.status).toBe(429);
     expect(limited.body).toEqual({
-      error: { code: 'too_many_attempts', message: 'too many failed sign-ins for this e-mail from this address; wait 15 minutes and try again' },
+      error: { code: 'too_many_attempts', message: 'too many failed sign-ins for this e-mail or from this address; wait 15 minutes and try again' },
     });
-    expect(limited.headers['ratelimit-policy']).toBeDefined();
+    expect(limited.headers['retry-after']).toBe('900');
     // Other people behind the same address are not locked out, and successful sign-ins do not count.
     for (let attempt = 0; attempt < 4; attempt += 1) expect((await login('lead@test.local')).status).toBe(200);
   });

@@ -3,7 +3,7 @@ import type { LoginResponse } from '@tallyfit/contracts';
 import { recordAudit } from '../audit/audit.service';
 import type { Config } from '../config';
 import { unauthorized } from '../http/http-error';
-import { verifyPassword } from '../identity/password';
+import { verifyPasswordOf } from '../identity/password';
 import { issueRefreshToken, revokeRefreshToken, rotateRefreshToken } from '../identity/refresh-tokens.service';
 import { findUserByEmail, publicUser, type StoredUser } from '../identity/users.service';
 import { signAccessToken } from './access-token';
@@ -25,7 +25,7 @@ function sessionTokens(config: SessionConfig, user: StoredUser, refreshToken: st
  */
 export async function signIn(db: Knex, config: SessionConfig, email: string, password: string): Promise<LoginResponse> {
   const user = await findUserByEmail(db, email);
-  const passwordOk = user ? await verifyPassword(password, user.passwordHash) : false;
+  const passwordOk = await verifyPasswordOf(user, password);
   if (!user || !passwordOk || user.disabled) {
     await recordAudit(db, {
       actorId: user?.id ?? null,

@@ -1,4 +1,4 @@
-import { mkdirSync, renameSync, rmSync } from 'node:fs';
+import { chmodSync, mkdirSync, renameSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Knex } from 'knex';
 import type { CategoryCounts, CountSelection, DatasetRecord, DatasetSummary, User } from '@tallyfit/contracts';
@@ -123,9 +123,10 @@ export async function createDataset(
         after: { fileName: file.originalName, sizeBytes: file.sizeBytes, sha256, rowCount: scan.rowCount, selection: selection ?? null },
       });
       // Last step inside the transaction: if the move fails, the rows roll back.
-      mkdirSync(join(dataDir, STORE), { recursive: true });
+      mkdirSync(join(dataDir, STORE), { recursive: true, mode: 0o700 });
       storedPath = join(dataDir, storedFile);
       renameSync(file.path, storedPath);
+      chmodSync(storedPath, 0o600); // people's data: readable by the server's account only
       return newId;
     });
     return getDatasetById(db, id);

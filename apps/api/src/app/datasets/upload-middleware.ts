@@ -23,7 +23,9 @@ export function receiveDatasetFile(tempDir: string, limitBytes: number): Request
     }),
     limits: { fileSize: limitBytes, files: 1, fields: 10, fieldSize: 1000, parts: 12 },
     fileFilter: (_req, file, callback) => {
-      if (fileKindOf(file.originalname)) callback(null, true);
+      // A control character (a NUL above all) in a name would be stored and shown as is; refuse it.
+      if (hasControlCharacter(file.originalname)) callback(controlCharacterInName());
+      else if (fileKindOf(file.originalname)) callback(null, true);
       else callback(unsupportedFileType(file.originalname));
     },
   }).single('file');
@@ -45,8 +47,25 @@ export function receiveDatasetFile(tempDir: string, limitBytes: number): Request
   };
 }
 
+/** C0 controls (NUL to U+001F) and DEL. */
+const hasControlCharacter = (name: string) => [...name].some((char) => char.charCodeAt(0) < 0x20 || char.charCodeAt(0) === 0x7f);
+
+const controlCharacterInName = () =>
+  badRequest('the file name contains a control character (such as NUL); rename the file and send it again', [
+    { path: 'file', message: 'file name with a control character' },
+  ]);
+
+/**
+ * The multipart parser's own complaints (no boundary, a body that ends early, a malformed part
+ * header) are the client's: a 400 that passes the parser's reason on. Errors of the disk (a
+ * system error with a code, such as ENOSPC) and our own HTTP errors pass through unchanged.
+ */
 function uploadError(error: unknown, limitBytes: number): unknown {
-  if (!(error instanceof multer.MulterError)) return error;
+  if (error instanceof HttpError) return error;
+  if (!(error instanceof multer.MulterError)) {
+    if (!(error instanceof Error) || (error as NodeJS.ErrnoException).code !== undefined) return error;
+    return new HttpError(400, 'malformed_upload', `the upload is not a well-formed multipart/form-data body (${error.message.replace(/^Multipart: /, '')}); send the file in the field named "file"`);
+  }
   switch (error.code) {
     case 'LIMIT_FILE_SIZE':
       return new HttpError(413, 'payload_too_large', `the file is larger than the upload limit of ${formatBytes(limitBytes)}`);

@@ -2,8 +2,13 @@ import { analyze, EngineInputError, type AnalysisResult, type AnalysisSpec, type
 
 /** Runs the engine for the API. The server uses a worker pool; tests may choose to run in-process. */
 export interface EngineRunner {
-  analyze(spec: AnalysisSpec): Promise<AnalysisResult>;
+  analyze(spec: AnalysisSpec, options?: EngineRunOptions): Promise<AnalysisResult>;
   close(): Promise<void>;
+}
+
+export interface EngineRunOptions {
+  /** Who asked (a person's id): the worker pool takes turns between owners. */
+  owner?: string;
 }
 
 /** What a worker sends back: a result, or the input problems the engine named. */

@@ -12,8 +12,8 @@ export function engineRoutes(engine: EngineRunner): RouteDefinition[] {
       summary: 'Run the engine on a spec and return the result; nothing is stored (for pipelines, with an API token)',
       request: { body: analysisSpecSchema },
       responses: { 200: z.record(z.string(), z.unknown()).describe("the engine's AnalysisResult") },
-      handler: async ({ body, res }) => {
-        res.json(await engine.analyze(body));
+      handler: async ({ body, user, res }) => {
+        res.json(await engine.analyze(body, { owner: String(user.id) }));
       },
     }),
   ];

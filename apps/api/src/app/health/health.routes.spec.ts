@@ -15,6 +15,7 @@ describe('GET /api/v1/health', () => {
       status: 'ok',
       database: { reachable: true, client: process.env['TALLYFIT_TEST_POSTGRES_URL'] ? 'pg' : 'better-sqlite3' },
       migrations: { current: true, pending: [] },
+      storage: { writable: true, freeBytes: expect.any(Number) },
       engineVersion: ENGINE_VERSION,
     });
   });

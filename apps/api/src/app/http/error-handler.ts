@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { EngineInputError } from '@tallyfit/engine';
+import { isStorageFull, storageFull } from '../storage/storage-full';
 import { HttpError } from './http-error';
 
 /** Any /api path no route claimed. */
@@ -20,11 +21,13 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
   }
   const body: { code: string; message: string; fields?: unknown } = { code: known.code, message: known.message };
   if (known.fields?.length) body.fields = known.fields;
+  if (known.headers) res.set(known.headers);
   res.status(known.status).json({ error: body });
 };
 
 function toHttpError(error: unknown): HttpError | undefined {
   if (error instanceof HttpError) return error;
+  if (isStorageFull(error)) return storageFull();
   if (error instanceof EngineInputError) {
     return new HttpError(400, 'invalid_input', error.message, error.issues);
   }

@@ -10,6 +10,8 @@ export class HttpError extends Error {
     readonly code: string,
     message: string,
     readonly fields?: FieldProblem[],
+    /** Response headers that belong to this answer, e.g. Retry-After on a 503. */
+    readonly headers?: Record<string, string>,
   ) {
     super(message);
   }
@@ -24,3 +26,7 @@ export const notFound = (message: string) => new HttpError(404, 'not_found', mes
 export const conflict = (message: string) => new HttpError(409, 'conflict', message);
 export const unprocessable = (message: string, fields?: FieldProblem[]) =>
   new HttpError(422, 'unprocessable', message, fields);
+
+/** The server cannot take this now; `retryAfterSeconds` tells the client when to try again. */
+export const unavailable = (code: string, message: string, retryAfterSeconds: number) =>
+  new HttpError(503, code, message, undefined, { 'Retry-After': String(Math.max(1, Math.ceil(retryAfterSeconds))) });

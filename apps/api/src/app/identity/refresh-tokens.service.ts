@@ -3,7 +3,7 @@ import { recordAudit } from '../audit/audit.service';
 import { insertedId, now } from '../http/db-time';
 import { unauthorized } from '../http/http-error';
 import { hashToken, newToken, REFRESH_TOKEN_PREFIX } from './token-hash';
-import { findUserById, type StoredUser } from './users.service';
+import { endAccessTokensIssuedSoFar, findUserById, type StoredUser } from './users.service';
 
 const expiry = (ttlSeconds: number) => new Date(Date.now() + ttlSeconds * 1000);
 const expired = (value: string | Date | number) => new Date(typeof value === 'string' && !value.includes('T') ? value.replace(' ', 'T') + 'Z' : value).getTime() <= Date.now();
@@ -27,7 +27,7 @@ export async function rotateRefreshToken(db: Knex, token: string, ttlSeconds: nu
     const row = await trx('refresh_tokens').where({ token_hash: hashToken(token) }).first();
     if (!row) throw refused();
     if (row.revoked_at !== null) {
-      await trx('refresh_tokens').where({ user_id: row.user_id }).whereNull('revoked_at').update({ revoked_at: now(trx) });
+      await revokeAllRefreshTokens(trx, row.user_id);
       await recordAudit(trx, {
         actorId: row.user_id,
         action: 'revoke',
@@ -49,15 +49,23 @@ export async function rotateRefreshToken(db: Knex, token: string, ttlSeconds: nu
   });
 }
 
-/** Revokes one refresh token (signing out); unknown or already revoked tokens are ignored. */
+/**
+ * Signs out: revokes this refresh token and ends every access token the person holds (the
+ * timestamp is per person, not per session, so other sessions renew theirs once with their own
+ * refresh tokens). Unknown or already revoked tokens are ignored.
+ */
 export async function revokeRefreshToken(db: Knex, token: string): Promise<number | undefined> {
   const row = await db('refresh_tokens').where({ token_hash: hashToken(token) }).whereNull('revoked_at').first('id', 'user_id');
   if (!row) return undefined;
-  await db('refresh_tokens').where({ id: row.id }).update({ revoked_at: now(db) });
+  await db.transaction(async (trx) => {
+    await trx('refresh_tokens').where({ id: row.id }).update({ revoked_at: now(trx) });
+    await endAccessTokensIssuedSoFar(trx, row.user_id);
+  });
   return row.user_id;
 }
 
-/** Signs a person out everywhere (password change, account disabled). */
+/** Signs a person out everywhere (password change, account disabled): refresh and access tokens. */
 export async function revokeAllRefreshTokens(db: Knex, userId: number): Promise<void> {
   await db('refresh_tokens').where({ user_id: userId }).whereNull('revoked_at').update({ revoked_at: now(db) });
+  await endAccessTokensIssuedSoFar(db, userId);
 }

@@ -9,11 +9,14 @@ interface UserRow {
   password_hash: string;
   role: Role;
   disabled: number | boolean;
+  sessions_valid_after_ms: number | string | null;
 }
 
 export interface StoredUser extends User {
   passwordHash: string;
   disabled: boolean;
+  /** Access tokens issued before this moment (ms since 1970) are refused; null: none refused. */
+  sessionsValidAfterMs: number | null;
 }
 
 const toStoredUser = (row: UserRow): StoredUser => ({
@@ -23,6 +26,8 @@ const toStoredUser = (row: UserRow): StoredUser => ({
   role: row.role,
   passwordHash: row.password_hash,
   disabled: Boolean(row.disabled),
+  // PostgreSQL returns bigint as a string.
+  sessionsValidAfterMs: row.sessions_valid_after_ms === null ? null : Number(row.sessions_valid_after_ms),
 });
 
 export const publicUser = ({ id, email, name, role }: User): User => ({ id, email, name, role });
@@ -55,4 +60,13 @@ export async function createUser(
 export async function countUsers(db: Knex): Promise<number> {
   const [{ count }] = await db('users').count({ count: '*' });
   return Number(count);
+}
+
+/**
+ * Ends every access token issued so far to this person (sign-out, password change): the check on
+ * each request refuses tokens issued before now. Refresh tokens are a separate matter: sign-out
+ * revokes one, a password change all.
+ */
+export async function endAccessTokensIssuedSoFar(db: Knex, userId: number, nowMs = Date.now()): Promise<void> {
+  await db('users').where({ id: userId }).update({ sessions_valid_after_ms: nowMs });
 }

@@ -45,7 +45,7 @@ export async function startMailService(settings: MailSettings): Promise<MailServ
     ...(standIn ? { ignoreTLS: true } : {}),
   });
   return {
-    destination: standIn ? `the local stand-in at ${url}` : withoutCredentials(url),
+    destination: standIn ? `the local stand-in at ${withoutCredentials(url)}` : withoutCredentials(url),
     async send(mail) {
       const info = await transport.sendMail({ ...mail, from: settings.from });
       return { messageId: String(info.messageId ?? '') };

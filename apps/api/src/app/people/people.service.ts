@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import type { ChangePasswordRequest, CreatePersonRequest, Person, UpdatePersonRequest, User } from '@tallyfit/contracts';
 import { insertWithAudit, recordAudit } from '../audit/audit.service';
 import { hashPassword, verifyPassword } from '../identity/password';
+import { requireStrongPassword } from '../identity/password-strength';
 import { revokeAllRefreshTokens } from '../identity/refresh-tokens.service';
 import { findUserByEmail, findUserById } from '../identity/users.service';
 import { isoDate } from '../http/db-time';
@@ -53,6 +54,7 @@ export async function getPerson(db: Knex, id: number): Promise<Person> {
 /** An admin adds a person; e-mails are unique without regard to case. */
 export async function createPerson(db: Knex, caller: User, request: CreatePersonRequest): Promise<Person> {
   if (await findUserByEmail(db, request.email)) throw conflict(`someone already signs in with ${request.email.toLowerCase()}`);
+  await requireStrongPassword(request.password, 'password', [request.email, request.name]);
   const passwordHash = await hashPassword(request.password);
   const row = { email: request.email.toLowerCase(), name: request.name, role: request.role, password_hash: passwordHash };
   const id = await db.transaction((trx) =>
@@ -112,6 +114,7 @@ export async function changeOwnPassword(db: Knex, caller: User, request: ChangeP
   if (!user || !(await verifyPassword(request.currentPassword, user.passwordHash))) {
     throw unprocessable('the current password is wrong', [{ path: 'currentPassword', message: 'is wrong' }]);
   }
+  await requireStrongPassword(request.newPassword, 'newPassword', [user.email, user.name]);
   const passwordHash = await hashPassword(request.newPassword);
   await db.transaction(async (trx) => {
     await trx('users').where({ id: caller.id }).update({ password_hash: passwordHash });

@@ -33,13 +33,20 @@ const STATUS_WORDS: Record<AnalysisStatus, string> = {
   returned: 'returned',
 };
 
-/** Who may decide is the route's capability; who may submit is also a matter of authorship. */
+/**
+ * Who may decide is the route's capability; authorship decides the rest: only the author (or an
+ * admin) submits, and nobody, admins included, signs off or returns their own analysis, since a
+ * review is a second person's judgement.
+ */
 function checkReviewer(caller: User, analysis: AnalysisRecord, decision: Decision): void {
   if (decision === 'submitted' && analysis.author.id !== caller.id && caller.role !== 'admin') {
     throw forbidden('only the author of an analysis (or an admin) may submit it for review');
   }
   if (decision === 'withdrawn' && analysis.author.id !== caller.id) {
     throw forbidden('only the author of an analysis may withdraw its submission');
+  }
+  if ((decision === 'signed_off' || decision === 'returned') && analysis.author.id === caller.id) {
+    throw forbidden(`you wrote this analysis, so you cannot ${decision === 'signed_off' ? 'sign it off' : 'return it'}: a review needs a second person; ask another lead or an admin`);
   }
 }
 

@@ -3,7 +3,7 @@ import type { CreateShareRequest, Share, User } from '@tallyfit/contracts';
 import { getReadableAnalysis } from '../analyses/analyses.service';
 import { insertWithAudit } from '../audit/audit.service';
 import type { Config } from '../config';
-import { isoDate } from '../http/db-time';
+import { dbTime, isoDate } from '../http/db-time';
 import { HttpError } from '../http/http-error';
 import type { MailService } from '../mail/mail-service';
 import { markdownReport } from '../reports/markdown-report';
@@ -48,6 +48,28 @@ function mailBody(sender: User, title: string, link: string, report: string, mes
   ].join('\n');
 }
 
+/** E-mails one person may send from Tallyfit per hour: enough for a team, too few for a spam run (common practice, no source). */
+export const SHARES_PER_HOUR = 20;
+const HOUR_MS = 60 * 60 * 1000;
+
+/**
+ * Counts the person's shares of the last hour in the shares table (sent or failed: each was an
+ * attempt to mail someone), so every server sharing the database applies one limit.
+ */
+async function requireShareAllowance(db: Knex, caller: User): Promise<void> {
+  const since = dbTime(db, new Date(Date.now() - HOUR_MS).toISOString());
+  const recent = await db('shares').where('sent_by', caller.id).andWhere('created_at', '>', since).orderBy('created_at', 'asc').select('created_at');
+  if (recent.length < SHARES_PER_HOUR) return;
+  const freesAt = new Date(isoDate(recent[recent.length - SHARES_PER_HOUR].created_at as string | Date)).getTime() + HOUR_MS;
+  throw new HttpError(
+    429,
+    'too_many_shares',
+    `you have shared ${SHARES_PER_HOUR} times in the last hour, the most allowed; try again in ${Math.max(1, Math.ceil((freesAt - Date.now()) / 60_000))} minutes`,
+    undefined,
+    { 'Retry-After': String(Math.max(1, Math.ceil((freesAt - Date.now()) / 1000))) },
+  );
+}
+
 /**
  * Sends an analysis's report by e-mail and records the share with its audit event. When the mail
  * server does not take the message, nothing was sent: the share is recorded as failed with the
@@ -62,6 +84,7 @@ export async function shareAnalysis(
   request: CreateShareRequest,
 ): Promise<Share> {
   const source = await reportSourceFor(db, caller, analysisId);
+  await requireShareAllowance(db, caller);
   const link = analysisLink(config, analysisId);
   const report = markdownReport(source, link);
   const recipients = [...new Set(request.to.map((address) => address.toLowerCase()))];

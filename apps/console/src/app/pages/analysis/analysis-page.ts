@@ -1,7 +1,7 @@
 import { DatePipe, DecimalPipe } from '@angular/common';
 import { LiveAnnouncer } from '@angular/cdk/a11y';
-import { ChangeDetectionStrategy, Component, computed, inject, input, numberAttribute, signal } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, DestroyRef, inject, input, numberAttribute, type OnInit, signal } from '@angular/core';
+import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
@@ -17,6 +17,7 @@ import { AuthSession } from '../../core/auth/auth-session';
 import { can } from '@tallyfit/contracts';
 import { saveFile } from '../../core/files/save-file';
 import { LOADING, toLoadState } from '../../core/load/load-state';
+import { NotificationsCenter } from '../../core/notifications/notifications-center';
 import { AnalysisStatusChip } from '../../shared/analysis-status/analysis-status-chip';
 import { AssumptionCheckPanel, type Remedy } from './assumption-check';
 import { CategoriesTable } from './categories-table';
@@ -61,7 +62,7 @@ interface RerunNote {
   styleUrl: './analysis-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class AnalysisPage {
+export class AnalysisPage implements OnInit {
   private readonly api = inject(AnalysesApi);
   private readonly reports = inject(ReportsApi);
   private readonly dialog = inject(MatDialog);
@@ -135,6 +136,23 @@ export class AnalysisPage {
         this.busy.set(null);
         this.problem.set(apiErrorMessage(error));
       },
+    });
+  }
+
+  private readonly notifications = inject(NotificationsCenter);
+  private readonly destroyRef = inject(DestroyRef);
+
+  /**
+   * A decision someone else makes on this analysis arrives as a notification: when a newer one for
+   * it comes in, the page reads the analysis and its history again, so the person sitting on it sees it.
+   */
+  ngOnInit(): void {
+    let newestSeen: { analysisId: number; notificationId: number } | null = null;
+    this.notifications.latest.pipe(takeUntilDestroyed(this.destroyRef)).subscribe((page) => {
+      const analysisId = this.id();
+      const newest = page.items.find((item) => item.analysis.id === analysisId)?.id ?? 0;
+      if (newestSeen?.analysisId === analysisId && newest > newestSeen.notificationId) this.reviewChanged();
+      newestSeen = { analysisId, notificationId: newest };
     });
   }
 

@@ -28,8 +28,9 @@ describe('what the result page offers', () => {
     expect(reviewActions(analysis('in_review', 3), admin).withdraw).toBe(false);
   });
 
-  it('freezes signed-off work: no edit, but a change makes a new version with its own review', () => {
-    expect(offered(reviewActions(analysis('signed_off'), analyst))).toEqual(['changeAndRerun', 'remove']);
+  it('freezes signed-off work: no edit, deletion only by an admin, but a change makes a new version with its own review', () => {
+    expect(offered(reviewActions(analysis('signed_off'), analyst))).toEqual(['changeAndRerun']);
+    expect(offered(reviewActions(analysis('signed_off'), admin))).toEqual(['changeAndRerun', 'remove']);
   });
 
   it('offers returned work back to its author to change and resubmit', () => {

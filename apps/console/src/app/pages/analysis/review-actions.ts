@@ -12,7 +12,7 @@ export interface ReviewActions {
   edit: boolean;
   /** Open the flow pre-filled and store the changed run as a new version (not while a reviewer has it). */
   changeAndRerun: boolean;
-  /** Delete it with all its versions (its author or an admin). */
+  /** Delete it with all its versions (its author or an admin; once signed off, only an admin). */
   remove: boolean;
 }
 
@@ -31,7 +31,7 @@ export function reviewActions(analysis: Pick<AnalysisRecord, 'status' | 'isLates
     withdraw: runs && own && latest && status === 'in_review',
     edit: authorOrAdmin && status !== 'signed_off',
     changeAndRerun: authorOrAdmin && latest && status !== 'in_review',
-    remove: authorOrAdmin,
+    remove: authorOrAdmin && (status !== 'signed_off' || role === 'admin'),
   };
 }
 
