@@ -10,6 +10,7 @@ import * as createDatasets from './20261202-0020-create-datasets';
 import * as createShares from './20261202-0021-create-shares';
 import * as indexAnalysisHistory from './20261202-0022-index-analysis-history';
 import * as addAnalysisSegments from './20261202-0023-add-analysis-segments';
+import * as createNotifications from './20261202-0030-create-notifications';
 import * as createSourceConnections from './20261202-0040-create-source-connections';
 import * as createWatches from './20261202-0041-create-watches';
 import * as createWatchBatches from './20261202-0042-create-watch-batches';
@@ -38,6 +39,7 @@ const migrations: ReadonlyArray<readonly [name: string, migration: Migration]> =
   ['20261202-0021-create-shares', createShares],
   ['20261202-0022-index-analysis-history', indexAnalysisHistory],
   ['20261202-0023-add-analysis-segments', addAnalysisSegments],
+  ['20261202-0030-create-notifications', createNotifications],
   ['20261202-0040-create-source-connections', createSourceConnections],
   ['20261202-0041-create-watches', createWatches],
   ['20261202-0042-create-watch-batches', createWatchBatches],

@@ -15,3 +15,5 @@ export * from './lib/shares';
 export * from './lib/capabilities';
 export * from './lib/count-text';
 export * from './lib/watches';
+export * from './lib/review-state';
+export * from './lib/notifications';

@@ -22,6 +22,7 @@ import { sharesRoutes } from './shares/shares.routes';
 import { apiTokensRoutes } from './tokens/api-tokens.routes';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { reviewsRoutes } from './reviews/reviews.routes';
+import { notificationsRoutes } from './notifications/notifications.routes';
 import { studiesRoutes } from './studies/studies.routes';
 import { API_PREFIX, mountRoutes, type RouteDefinition } from './http/route-table';
 import { WriteHealth } from './storage/write-health';
@@ -50,14 +51,20 @@ export interface TallyfitApp {
 }
 
 /** Every resource's routes. A new resource is added here and nowhere else. */
-function allRoutes({ config, db, engine, mail }: AppContext, watches: WatchRuntime, writeHealth: WriteHealth): RouteDefinition[] {
+function allRoutes(
+  { config, db, engine, mail }: AppContext,
+  watches: WatchRuntime,
+  writeHealth: WriteHealth,
+  logger: Logger,
+): RouteDefinition[] {
   const routes: RouteDefinition[] = [
     ...healthRoutes(db, writeHealth),
     ...authRoutes(db, config),
     ...peopleRoutes(db),
     ...apiTokensRoutes(db),
     ...analysesRoutes(db, config, engine),
-    ...reviewsRoutes(db),
+    ...reviewsRoutes(db, { mail, publicUrl: config.publicUrl, logger }),
+    ...notificationsRoutes(db),
     ...engineRoutes(engine),
     ...studiesRoutes(db),
     ...auditRoutes(db),
@@ -113,7 +120,7 @@ export function createApp(context: AppContext): TallyfitApp {
   app.use(writeHealth.noteSuccesses);
 
   const watches = startWatchRuntime({ db, engine: context.engine, mail: context.mail, config, logger, ...context.watchOptions });
-  const routes = allRoutes(context, watches, writeHealth);
+  const routes = allRoutes(context, watches, writeHealth, logger);
   mountRoutes(app, routes, createAuthenticate(db, config.jwtSecret));
   app.use('/api', apiNotFound);
   if (config.consoleDir) serveConsole(app, config.consoleDir);

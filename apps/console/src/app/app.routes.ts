@@ -1,4 +1,7 @@
+import { inject } from '@angular/core';
 import type { Routes } from '@angular/router';
+import { AuthSession } from './core/auth/auth-session';
+import { homePath } from './shell/nav-items';
 import { capabilityGuard } from './core/auth/capability.guard';
 import { signedInGuard } from './core/auth/signed-in.guard';
 
@@ -13,7 +16,7 @@ export const appRoutes: Routes = [
     canActivate: [signedInGuard],
     loadComponent: () => import('./shell/app-shell').then((m) => m.AppShell),
     children: [
-      { path: '', pathMatch: 'full', redirectTo: 'analyses' },
+      { path: '', pathMatch: 'full', redirectTo: () => homePath(inject(AuthSession).role()) },
       {
         path: 'studies',
         title: 'Studies · Tallyfit',
@@ -66,6 +69,17 @@ export const appRoutes: Routes = [
         // Each page of the admin area has its own guard.
         path: 'admin',
         loadChildren: () => import('./pages/admin/admin.routes').then((m) => m.adminRoutes),
+      },
+      {
+        path: 'reviews',
+        title: 'To review · Tallyfit',
+        canMatch: [capabilityGuard('analyses.review')],
+        loadComponent: () => import('./pages/reviews/reviews-page').then((m) => m.ReviewsPage),
+      },
+      {
+        path: 'notifications',
+        title: 'Notifications · Tallyfit',
+        loadComponent: () => import('./pages/notifications/notifications-page').then((m) => m.NotificationsPage),
       },
       {
         path: 'analyses',

@@ -1,12 +1,14 @@
 import { z } from 'zod';
 import { personRefSchema } from './people-ref';
 
-export const REVIEW_DECISIONS = ['submitted', 'signed_off', 'returned'] as const;
+/** A withdrawal is the author taking a submission back to draft before anyone decided. */
+export const REVIEW_DECISIONS = ['submitted', 'signed_off', 'returned', 'withdrawn'] as const;
 export const reviewDecisionSchema = z.enum(REVIEW_DECISIONS);
 
 const comment = z.string().trim().max(5000, { message: 'comment must be at most 5000 characters' });
 
 export const submitForReviewRequestSchema = z.object({ comment: comment.optional() });
+export const withdrawSubmissionRequestSchema = z.object({ comment: comment.optional() });
 export const signOffRequestSchema = z.object({ comment: comment.optional() });
 /** Returning an analysis needs a reason, so its author knows what to change. */
 export const returnAnalysisRequestSchema = z.object({

@@ -15,6 +15,8 @@ export function markdownReport(source: ReportSource, link?: string): string {
   const lines: string[] = [`# ${inline(source.title)}`, ''];
   for (const [label, value] of reportFacts(source)) lines.push(`- **${label}:** ${inline(value)}`);
   if (link) lines.push(`- **In Tallyfit:** <${link}>`);
+  lines.push('', '## Review', '');
+  for (const line of source.reviewLines) lines.push(`- ${inline(line)}`);
   lines.push('', '## Verdict', '', result.conclusion.verdict, '');
   lines.push('## Statistics', '');
   for (const [test, line] of statisticsLines(result)) lines.push(`- ${test}: ${line}`);

@@ -42,7 +42,9 @@ function writeReport(text: PdfText, source: ReportSource): void {
   text.paragraph(source.title, { size: 18, weight: 700 });
   doc.moveDown(0.3);
   text.paragraph(reportFacts(source).map(([label, value]) => `${label}: ${value}`).join('   ·   '), { size: 8.5, color: MUTED });
-  doc.moveDown(0.8);
+  doc.moveDown(0.5);
+  for (const line of source.reviewLines) text.paragraph(line, { size: 9.5 });
+  doc.moveDown(0.5);
   text.paragraph(result.conclusion.verdict, { size: 11 });
 
   text.heading('Statistics');

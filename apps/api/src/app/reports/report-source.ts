@@ -11,6 +11,8 @@ export interface ReportSource {
   createdAt: string;
   engineVersion: string;
   notes: string | null;
+  /** The review state and the decision behind it, in the words the result page uses (`reviewStateLines`). */
+  reviewLines: string[];
   result: AnalysisResult;
   /** the same test in each segment of a second column, when the analysis was split */
   segments?: { column: string; result: SegmentsResult } | null;

@@ -1,8 +1,9 @@
 import type { Knex } from 'knex';
-import type { User } from '@tallyfit/contracts';
+import { reviewStateLines, type User } from '@tallyfit/contracts';
 import { getReadableAnalysis } from '../analyses/analyses.service';
 import type { Config } from '../config';
 import { datasetFileName } from '../datasets/datasets.service';
+import { listReviews } from '../reviews/reviews.service';
 import type { ReportSource } from './report-source';
 
 /** The facts a report needs about an analysis the caller may read (404 otherwise). */
@@ -18,6 +19,7 @@ export async function reportSourceFor(db: Knex, caller: User, id: number): Promi
     createdAt: analysis.createdAt,
     engineVersion: analysis.engineVersion,
     notes: analysis.notes,
+    reviewLines: reviewStateLines(analysis.status, await listReviews(db, caller, id)),
     result: analysis.result,
     segments: analysis.segments && analysis.segmentColumn ? { column: analysis.segmentColumn, result: analysis.segments } : null,
   };

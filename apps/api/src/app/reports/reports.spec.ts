@@ -27,6 +27,7 @@ const source: ReportSource = {
   createdAt: '2026-12-02T10:15:00.000Z',
   engineVersion: ENGINE_VERSION,
   notes: 'Traffic from the mobile app only.',
+  reviewLines: ['Review state: Signed off.', 'Signed off by Lee Lead on 2026-12-02 11:40 UTC.'],
   result,
 };
 
@@ -43,6 +44,7 @@ describe('reports of an analysis', () => {
     expect(markdown).toContain("- Pearson's chi-square: χ²(9, N = 500) = 6.36");
     expect(markdown).toContain('- G-test (likelihood ratio): G(9, N = 500)');
     expect(markdown).toContain('Traffic from the mobile app only.');
+    expect(markdown).toContain('## Review\n\n- Review state: Signed off.\n- Signed off by Lee Lead on 2026-12-02 11:40 UTC.\n');
     expect(markdown).toContain('| \\=SUM(A1) |'.replace('\\', ''));
     for (const caution of result.report.cautions) expect(markdown).toContain(`- ${caution}`);
   });
@@ -70,6 +72,8 @@ describe('reports of an analysis', () => {
       'Checkout split, week 48',
       'Study: Checkout redesign',
       `Engine version: ${ENGINE_VERSION}`,
+      'Review state: Signed off.',
+      'Signed off by Lee Lead on 2026-12-02 11:40 UTC.',
       "Pearson's chi-square: χ²(9, N = 500) = 6.36, p = .703",
       'G-test (likelihood ratio): G(9, N = 500) = 6.40',
       'Observed and expected counts',

@@ -101,3 +101,34 @@ describe('reviews and comments', () => {
     expect((await ctx.db('analyses').where({ id }).first()).status).toBe('draft');
   });
 });
+
+describe('withdrawing a submission', () => {
+  let ctx: TestContext;
+  beforeAll(async () => {
+    ctx = await createTestApp();
+  });
+  afterAll(() => ctx.close());
+
+  it('takes an analysis in review back to draft, by its author only, recorded and audited', async () => {
+    const id = (await ctx.as('analyst').post('/analyses', { title: 'Second thoughts', spec })).body.id;
+    const early = await ctx.as('analyst').post(`/analyses/${id}/withdraw`, {});
+    expect(early.status).toBe(409);
+    expect(early.body.error.message).toBe(`analysis ${id} is a draft, so it cannot be withdrawn from review`);
+    await ctx.as('analyst').post(`/analyses/${id}/submit`, {}).expect(200);
+    const byAdmin = await ctx.as('admin').post(`/analyses/${id}/withdraw`, {});
+    expect(byAdmin.status).toBe(403);
+    expect(byAdmin.body.error.message).toBe('only the author of an analysis may withdraw its submission');
+    expect((await ctx.as('viewer').post(`/analyses/${id}/withdraw`, {})).status).toBe(403);
+
+    const withdrawn = await ctx.as('analyst').post(`/analyses/${id}/withdraw`, { comment: 'Wrong week.' });
+    expect(withdrawn.status).toBe(200);
+    expect(withdrawn.body.status).toBe('draft');
+    const reviews = await ctx.as('analyst').get(`/analyses/${id}/reviews`);
+    expect(reviews.body.map((r: { decision: string }) => r.decision)).toEqual(['submitted', 'withdrawn']);
+    const audit = await ctx.db('audit_events').where({ entity_type: 'analysis', entity_id: String(id), action: 'review' }).orderBy('id');
+    expect(audit.map((e) => e.summary)).toEqual(['submitted for review analysis "Second thoughts"', 'withdrawn from review analysis "Second thoughts"']);
+    // A lead can no longer decide on it, and it can be submitted again.
+    expect((await ctx.as('lead').post(`/analyses/${id}/sign-off`, {})).status).toBe(409);
+    await ctx.as('analyst').post(`/analyses/${id}/submit`, {}).expect(200);
+  });
+});

@@ -9,18 +9,27 @@ import {
   reviewSchema,
   signOffRequestSchema,
   submitForReviewRequestSchema,
+  withdrawSubmissionRequestSchema,
 } from '@tallyfit/contracts';
 import { defineRoute, type RouteDefinition } from '../http/route-table';
+import type { NotificationMail } from '../notifications/notifications.service';
 import { addComment, decideReview, listComments, listReviews } from './reviews.service';
 
 /** The review decisions, each its own route: who may take it, and what its body must hold. */
 const DECISIONS = [
   { decision: 'submitted', path: 'submit', access: 'analyses.run', summary: 'Submit an analysis for review (its author)', body: submitForReviewRequestSchema },
+  {
+    decision: 'withdrawn',
+    path: 'withdraw',
+    access: 'analyses.run',
+    summary: 'Withdraw a submission while it waits for review, back to draft (its author)',
+    body: withdrawSubmissionRequestSchema,
+  },
   { decision: 'signed_off', path: 'sign-off', access: 'analyses.review', summary: 'Sign off an analysis that is in review', body: signOffRequestSchema },
   { decision: 'returned', path: 'return', access: 'analyses.review', summary: 'Return an analysis in review to its author, saying why', body: returnAnalysisRequestSchema },
 ] as const;
 
-export function reviewsRoutes(db: Knex): RouteDefinition[] {
+export function reviewsRoutes(db: Knex, delivery: NotificationMail): RouteDefinition[] {
   return [
     ...DECISIONS.map(({ decision, path, access, summary, body }) =>
       defineRoute({
@@ -31,7 +40,7 @@ export function reviewsRoutes(db: Knex): RouteDefinition[] {
         tag: 'reviews',
         request: { params: idParamsSchema, body },
         responses: { 200: analysisRecordSchema },
-        handler: ({ params, body: { comment }, user }) => decideReview(db, user, params.id, decision, comment),
+        handler: ({ params, body: { comment }, user }) => decideReview(db, user, params.id, decision, comment, delivery),
       }),
     ),
     defineRoute({

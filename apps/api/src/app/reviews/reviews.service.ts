@@ -4,14 +4,26 @@ import { getAnalysisById, getReadableAnalysis } from '../analyses/analyses.servi
 import { insertWithAudit, recordAudit } from '../audit/audit.service';
 import { isoDate, now } from '../http/db-time';
 import { conflict, forbidden } from '../http/http-error';
+import { mailNotifications, notifyReviewDecision, type NotificationMail } from '../notifications/notifications.service';
 
 type Decision = Review['decision'];
 
-/** The review path: draft → in review → signed off | returned; a returned analysis can be resubmitted. */
+/**
+ * The review path: draft → in review → signed off | returned; a returned analysis can be resubmitted,
+ * and its author may withdraw a submission back to draft while it waits.
+ */
 const TRANSITIONS: Record<Decision, { from: readonly AnalysisStatus[]; to: AnalysisStatus; verb: string }> = {
   submitted: { from: ['draft', 'returned'], to: 'in_review', verb: 'submitted for review' },
   signed_off: { from: ['in_review'], to: 'signed_off', verb: 'signed off' },
   returned: { from: ['in_review'], to: 'returned', verb: 'returned' },
+  withdrawn: { from: ['in_review'], to: 'draft', verb: 'withdrawn from review' },
+};
+
+/** The decisions people are told about: withdrawing is the author's own business. */
+const NOTIFIED: Partial<Record<Decision, Exclude<Decision, 'withdrawn'>>> = {
+  submitted: 'submitted',
+  signed_off: 'signed_off',
+  returned: 'returned',
 };
 
 const STATUS_WORDS: Record<AnalysisStatus, string> = {
@@ -30,18 +42,26 @@ function checkReviewer(caller: User, analysis: AnalysisRecord, decision: Decisio
   if (decision === 'submitted' && analysis.author.id !== caller.id && caller.role !== 'admin') {
     throw forbidden('only the author of an analysis (or an admin) may submit it for review');
   }
-  if (decision !== 'submitted' && analysis.author.id === caller.id) {
+  if (decision === 'withdrawn' && analysis.author.id !== caller.id) {
+    throw forbidden('only the author of an analysis may withdraw its submission');
+  }
+  if ((decision === 'signed_off' || decision === 'returned') && analysis.author.id === caller.id) {
     throw forbidden(`you wrote this analysis, so you cannot ${decision === 'signed_off' ? 'sign it off' : 'return it'}: a review needs a second person; ask another lead or an admin`);
   }
 }
 
-/** Records a review decision and moves the analysis's status, in one transaction with its audit event. */
+/**
+ * Records a review decision and moves the analysis's status, in one transaction with its audit event
+ * and the notifications it causes; their e-mail copies go out after the commit (when `delivery` is
+ * given), so a mail failure never undoes the decision.
+ */
 export async function decideReview(
   db: Knex,
   caller: User,
   analysisId: number,
   decision: Decision,
   comment?: string,
+  delivery?: NotificationMail,
 ): Promise<AnalysisRecord> {
   const analysis = await getReadableAnalysis(db, caller, analysisId);
   checkReviewer(caller, analysis, decision);
@@ -50,13 +70,22 @@ export async function decideReview(
   if (!transition.from.includes(analysis.status)) {
     throw conflict(`analysis ${analysisId} is ${STATUS_WORDS[analysis.status]}, so it cannot be ${transition.verb}`);
   }
-  await db.transaction(async (trx) => {
+  const notificationIds = await db.transaction(async (trx) => {
     // The status in the WHERE makes two racing decisions safe: only one finds the row still in its old status.
     const moved = await trx('analyses')
       .where({ id: analysisId, status: analysis.status })
       .update({ status: transition.to, updated_at: now(trx) });
     if (moved !== 1) throw conflict(`analysis ${analysisId} changed status meanwhile; reload it`);
     await trx('analysis_reviews').insert({ analysis_id: analysisId, actor_id: caller.id, decision, comment: comment ?? null });
+    const kind = NOTIFIED[decision];
+    const notified = kind
+      ? await notifyReviewDecision(trx, {
+          kind,
+          analysis: { id: analysisId, title: analysis.title, authorId: analysis.author.id },
+          actor: { id: caller.id, name: caller.name },
+          note: comment ?? null,
+        })
+      : [];
     await recordAudit(trx, {
       actorId: caller.id,
       action: 'review',
@@ -65,9 +94,16 @@ export async function decideReview(
       studyId: analysis.study?.id ?? null,
       summary: `${transition.verb} analysis "${analysis.title}"`,
       before: { status: analysis.status },
-      after: { status: transition.to, comment: comment ?? null },
+      after: { status: transition.to, comment: comment ?? null, notified: notified.length },
     });
+    return notified;
   });
+  if (delivery) {
+    // Not awaited: a slow mail server must not hold the decision's answer; the outcome is recorded per notification.
+    void mailNotifications(db, delivery, notificationIds).catch((error: unknown) =>
+      delivery.logger.warn({ analysisId, reason: String(error) }, 'notification e-mails not sent'),
+    );
+  }
   return getAnalysisById(db, analysisId);
 }
 

@@ -1,6 +1,13 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
-import type { AnalysisRecord, AnalysisSummary, CreateAnalysisRequest, Page, RerunAnalysisResponse } from '@tallyfit/contracts';
+import type {
+  AnalysisRecord,
+  AnalysisSummary,
+  CreateAnalysisRequest,
+  Page,
+  RerunAnalysisResponse,
+  UpdateAnalysisRequest,
+} from '@tallyfit/contracts';
 import type { AnalysisSpec } from '@tallyfit/engine';
 import { map, of, tap, type Observable } from 'rxjs';
 import { pageHandlesErrors } from '../notify/page-handles-errors';
@@ -31,6 +38,23 @@ export class AnalysesApi {
     return this.http
       .get<Page<AnalysisSummary>>('/api/v1/analyses', { params: { author: 'me', pageSize: 100 } })
       .pipe(map((page) => page.items));
+  }
+
+  /** The analyses waiting for review, oldest first (up to 100): a lead's queue. */
+  listInReview(): Observable<AnalysisSummary[]> {
+    return this.http
+      .get<Page<AnalysisSummary>>('/api/v1/analyses', { params: { status: 'in_review', sort: 'date', order: 'asc', pageSize: 100 } })
+      .pipe(map((page) => page.items));
+  }
+
+  /** Edits the title or notes; the result stays as it was. */
+  update(id: number, changes: UpdateAnalysisRequest): Observable<AnalysisRecord> {
+    return this.http.patch<AnalysisRecord>(`/api/v1/analyses/${id}`, changes, { context: pageHandlesErrors() });
+  }
+
+  /** Deletes the analysis with all its versions (the audit trail keeps the record). */
+  delete(id: number): Observable<void> {
+    return this.http.delete<void>(`/api/v1/analyses/${id}`, { context: pageHandlesErrors() });
   }
 
   /** One analysis: the one just stored if it is that, else from the API (a reload always asks the API). */

@@ -14,6 +14,11 @@ export class ReviewsApi {
     return this.http.post<AnalysisRecord>(`/api/v1/analyses/${analysisId}/submit`, withComment(comment));
   }
 
+  /** The author takes a submission back to draft while it waits. */
+  withdraw(analysisId: number): Observable<AnalysisRecord> {
+    return this.http.post<AnalysisRecord>(`/api/v1/analyses/${analysisId}/withdraw`, {}, { context: pageHandlesErrors() });
+  }
+
   signOff(analysisId: number, comment?: string): Observable<AnalysisRecord> {
     return this.http.post<AnalysisRecord>(`/api/v1/analyses/${analysisId}/sign-off`, withComment(comment), {
       context: pageHandlesErrors(),

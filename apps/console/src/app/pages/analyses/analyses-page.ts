@@ -11,23 +11,24 @@ import { AnalysesApi } from '../../core/api/analyses-api';
 import { apiErrorMessage } from '../../core/api/api-error-message';
 import { AuthSession } from '../../core/auth/auth-session';
 import { formatP } from '../../core/format/p-value';
+import { AnalysisStatusChip } from '../../shared/analysis-status/analysis-status-chip';
 
 type ListState =
   | { status: 'loading' }
   | { status: 'loaded'; analyses: AnalysisSummary[] }
   | { status: 'failed'; message: string };
 
-/** The signed-in person's saved analyses, newest first. */
+/** The signed-in person's saved analyses, newest first, each with where it is in review. */
 @Component({
   selector: 'tf-analyses-page',
-  imports: [RouterLink, DatePipe, MatTableModule, MatButtonModule, MatProgressBarModule],
+  imports: [RouterLink, DatePipe, MatTableModule, MatButtonModule, MatProgressBarModule, AnalysisStatusChip],
   templateUrl: './analyses-page.html',
   styleUrl: './analyses-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class AnalysesPage {
   private readonly user = inject(AuthSession).user;
-  protected readonly columns = ['title', 'hypothesis', 'n', 'p', 'createdAt'];
+  protected readonly columns = ['title', 'status', 'hypothesis', 'n', 'p', 'createdAt'];
   protected readonly formatP = formatP;
   protected readonly canRun = computed(() => ['analyst', 'admin'].includes(this.user()?.role ?? ''));
 

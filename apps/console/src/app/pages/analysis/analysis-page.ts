@@ -1,7 +1,7 @@
 import { DatePipe, DecimalPipe } from '@angular/common';
 import { LiveAnnouncer } from '@angular/cdk/a11y';
-import { ChangeDetectionStrategy, Component, computed, inject, input, numberAttribute, signal } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, DestroyRef, inject, input, numberAttribute, type OnInit, signal } from '@angular/core';
+import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
@@ -13,11 +13,11 @@ import { combineLatest, switchMap } from 'rxjs';
 import { AnalysesApi } from '../../core/api/analyses-api';
 import { apiErrorMessage } from '../../core/api/api-error-message';
 import { ReportsApi, type ReportFormat } from '../../core/api/reports-api';
-import { ReviewsApi } from '../../core/api/reviews-api';
 import { AuthSession } from '../../core/auth/auth-session';
 import { can } from '@tallyfit/contracts';
 import { saveFile } from '../../core/files/save-file';
 import { LOADING, toLoadState } from '../../core/load/load-state';
+import { NotificationsCenter } from '../../core/notifications/notifications-center';
 import { AnalysisStatusChip } from '../../shared/analysis-status/analysis-status-chip';
 import { AssumptionCheckPanel, type Remedy } from './assumption-check';
 import { CategoriesTable } from './categories-table';
@@ -27,7 +27,9 @@ import { ResultCharts } from './result-charts';
 import { SegmentsPanel } from './segments-panel';
 import { ShareDialog, type ShareDialogData } from './share-dialog';
 import { testRows } from './test-rows';
+import { ReviewPanel } from './review-panel';
 import { WriteUp } from './write-up';
+import { CommentsThread } from '../../shared/comments-thread/comments-thread';
 
 /** What a re-run changed, kept for the version it produced. */
 interface RerunNote {
@@ -54,16 +56,17 @@ interface RerunNote {
     CategoriesTable,
     ResultCharts,
     SegmentsPanel,
+    ReviewPanel,
+    CommentsThread,
     WriteUp,
   ],
   templateUrl: './analysis-page.html',
   styleUrl: './analysis-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class AnalysisPage {
+export class AnalysisPage implements OnInit {
   private readonly api = inject(AnalysesApi);
   private readonly reports = inject(ReportsApi);
-  private readonly reviews = inject(ReviewsApi);
   private readonly dialog = inject(MatDialog);
   private readonly router = inject(Router);
   private readonly announcer = inject(LiveAnnouncer);
@@ -92,10 +95,8 @@ export class AnalysisPage {
   protected readonly canRun = computed(() => can(this.user()?.role, 'analyses.run'));
   /** The API lets everyone but viewers e-mail an analysis they can read. */
   protected readonly canShare = computed(() => can(this.user()?.role, 'analyses.share'));
-  protected readonly canSubmit = computed(() => {
-    const analysis = this.analysis();
-    return !!analysis && this.canRun() && analysis.isLatest && (analysis.status === 'draft' || analysis.status === 'returned');
-  });
+  /** Counts review decisions made on this page, so the panel and the thread read the history again. */
+  protected readonly reviewKey = signal(0);
   protected readonly fileStem = computed(() => `analysis-${this.id()}`);
 
   protected readonly busy = signal<string | null>(null);
@@ -140,20 +141,27 @@ export class AnalysisPage {
     });
   }
 
-  protected submitForReview(analysis: AnalysisRecord): void {
-    this.busy.set('Submitting…');
-    this.problem.set(null);
-    this.reviews.submit(analysis.id).subscribe({
-      next: () => {
-        this.busy.set(null);
-        void this.announcer.announce('Submitted for review.');
-        this.reload.update((count) => count + 1);
-      },
-      error: (error: unknown) => {
-        this.busy.set(null);
-        this.problem.set(apiErrorMessage(error));
-      },
+  private readonly notifications = inject(NotificationsCenter);
+  private readonly destroyRef = inject(DestroyRef);
+
+  /**
+   * A decision someone else makes on this analysis arrives as a notification: when a newer one for
+   * it comes in, the page reads the analysis and its history again, so the person sitting on it sees it.
+   */
+  ngOnInit(): void {
+    let newestSeen: { analysisId: number; notificationId: number } | null = null;
+    this.notifications.latest.pipe(takeUntilDestroyed(this.destroyRef)).subscribe((page) => {
+      const analysisId = this.id();
+      const newest = page.items.find((item) => item.analysis.id === analysisId)?.id ?? 0;
+      if (newestSeen?.analysisId === analysisId && newest > newestSeen.notificationId) this.reviewChanged();
+      newestSeen = { analysisId, notificationId: newest };
     });
+  }
+
+  /** A review decision or an edit in the review panel: read the analysis and its history again. */
+  protected reviewChanged(): void {
+    this.reviewKey.update((count) => count + 1);
+    this.reload.update((count) => count + 1);
   }
 
   protected share(analysis: AnalysisRecord): void {

@@ -1,5 +1,5 @@
 import type { CreateAnalysisRequest } from '@tallyfit/contracts';
-import type { Hypothesis } from '@tallyfit/engine';
+import type { AnalysisSpec, Hypothesis } from '@tallyfit/engine';
 import type { DataChoice } from './data-step/data-choice';
 import type { AnalysisOptions } from './options-step/analysis-options';
 
@@ -14,10 +14,13 @@ export function analysisRequest(
   data: DataChoice,
   hypothesis: Hypothesis,
   options: AnalysisOptions,
+  notes = '',
 ): CreateAnalysisRequest {
+  const described = notes.trim() ? { notes: notes.trim() } : {};
   if (data.datasetId !== undefined && data.selection) {
     return {
       title: title.trim(),
+      ...described,
       datasetId: data.datasetId,
       selection: data.selection,
       spec: { hypothesis, ...options },
@@ -26,9 +29,15 @@ export function analysisRequest(
   }
   return {
     title: title.trim(),
-    spec: { observed: data.observed, hypothesis, ...options },
+    ...described,
+    spec: rerunSpec(data, hypothesis, options),
     ...(studyId !== null ? { studyId } : {}),
   };
+}
+
+/** The whole spec the three steps describe: what a re-run with changes sends. */
+export function rerunSpec(data: DataChoice, hypothesis: Hypothesis, options: AnalysisOptions): AnalysisSpec {
+  return { observed: data.observed, hypothesis, ...options };
 }
 
 /** A title to start from, so the person only has to adjust it. */

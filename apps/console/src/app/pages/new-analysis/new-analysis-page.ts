@@ -11,15 +11,17 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatStepperModule } from '@angular/material/stepper';
 import { Router } from '@angular/router';
-import type { Study } from '@tallyfit/contracts';
+import type { AnalysisRecord, Study } from '@tallyfit/contracts';
 import type { Hypothesis } from '@tallyfit/engine';
-import { catchError, interval, map, of, type Subscription } from 'rxjs';
+import { catchError, interval, map, type Observable, of, type Subscription, switchMap } from 'rxjs';
 import { AnalysesApi } from '../../core/api/analyses-api';
 import { apiErrorMessage } from '../../core/api/api-error-message';
 import { StudiesApi } from '../../core/api/studies-api';
 import { AuthSession } from '../../core/auth/auth-session';
 import { runsInStudy } from '../studies/study-access';
-import { analysisRequest, suggestedTitle } from './analysis-run';
+import { analysisRequest, rerunSpec, suggestedTitle } from './analysis-run';
+import { LOADING, loadedValue, toLoadState, type LoadState } from '../../core/load/load-state';
+import { toObservable } from '@angular/core/rxjs-interop';
 import { totalOf, type DataChoice } from './data-step/data-choice';
 import { DataStep } from './data-step/data-step';
 import { HypothesisStep } from './hypothesis-step/hypothesis-step';
@@ -57,6 +59,35 @@ export class NewAnalysisPage {
 
   /** `?study=12` from a study's page preselects that study. */
   readonly study = input<string | undefined>(undefined);
+  /** `?from=34` ("change and re-run"): start from that analysis and store the run as its next version. */
+  readonly from = input<string | undefined>(undefined);
+
+  protected readonly source = toSignal(
+    toObservable(this.from).pipe(
+      switchMap((from): Observable<LoadState<AnalysisRecord> | null> => {
+        const id = Number(from);
+        return Number.isInteger(id) && id > 0 ? toLoadState(this.analyses.get(id)) : of(null);
+      }),
+    ),
+    { initialValue: LOADING },
+  );
+  /** The analysis being changed, once loaded. */
+  protected readonly original = computed(() => {
+    const state = this.source();
+    return state ? loadedValue(state) : null;
+  });
+  protected readonly sourceFailed = computed(() => {
+    const state = this.source();
+    return state?.status === 'failed' ? state.message : null;
+  });
+  protected readonly initialCounts = computed(() => this.original()?.spec.observed ?? null);
+  protected readonly initialHypothesis = computed(() => this.original()?.spec.hypothesis ?? null);
+  protected readonly initialOptions = computed(() => {
+    const original = this.original();
+    if (!original) return null;
+    const { observed: _observed, hypothesis: _hypothesis, ...options } = original.spec;
+    return options;
+  });
 
   protected readonly narrow = toSignal(inject(BreakpointObserver).observe('(max-width: 720px)').pipe(map((state) => state.matches)), {
     initialValue: false,
@@ -84,6 +115,7 @@ export class NewAnalysisPage {
   protected readonly hypothesis = signal<Hypothesis | null>(null);
   protected readonly options = signal<AnalysisOptions | null>(null);
   protected readonly title = signal('');
+  protected readonly notes = signal('');
   private titleTouched = false;
   protected readonly run = signal<RunState>({ state: 'idle' });
   /** the furthest step opened so far: a step counts as done only once the person has opened it */
@@ -96,6 +128,16 @@ export class NewAnalysisPage {
     effect(() => {
       const wanted = Number(this.study());
       if (Number.isInteger(wanted) && wanted > 0) untracked(() => this.studyId.set(wanted));
+    });
+    effect(() => {
+      const original = this.original();
+      if (!original) return;
+      untracked(() => {
+        this.titleTouched = true;
+        this.title.set(original.title);
+        this.notes.set(original.notes ?? '');
+        this.studyId.set(original.study?.id ?? null);
+      });
     });
     // Offer a title once the data and the hypothesis are known, until the person writes their own.
     effect(() => {
@@ -118,7 +160,10 @@ export class NewAnalysisPage {
     const hypothesis = this.hypothesis();
     const options = this.options();
     if (!data || !hypothesis || !options || this.title().trim() === '') return;
-    const run$ = this.analyses.create(analysisRequest(this.title(), this.studyId(), data, hypothesis, options));
+    const original = this.original();
+    const run$ = original
+      ? this.newVersion(original, rerunSpec(data, hypothesis, options))
+      : this.analyses.create(analysisRequest(this.title(), this.studyId(), data, hypothesis, options, this.notes()));
     this.run.set({ state: 'running', seconds: 0 });
     const clock = interval(1000).subscribe((seconds) => this.run.set({ state: 'running', seconds: seconds + 1 }));
     this.running = run$.subscribe({
@@ -132,6 +177,17 @@ export class NewAnalysisPage {
       },
     });
     this.running.add(clock);
+  }
+
+  /** Stores the changed run as the next version of `original`, then its title and notes if they were changed here. */
+  private newVersion(original: AnalysisRecord, spec: ReturnType<typeof rerunSpec>): Observable<AnalysisRecord> {
+    const title = this.title().trim();
+    const notes = this.notes().trim() || null;
+    return this.analyses.rerun(original.id, spec).pipe(
+      switchMap(({ analysis }) =>
+        title === analysis.title && notes === analysis.notes ? of(analysis) : this.analyses.update(analysis.id, { title, notes }),
+      ),
+    );
   }
 
   /** Unsubscribing aborts the request; the server still finishes the run it started and saves it. */

@@ -15,6 +15,7 @@ const DECISION_WORDS: Record<Review['decision'], string> = {
   submitted: 'submitted it for review',
   signed_off: 'signed it off',
   returned: 'returned it for changes',
+  withdrawn: 'withdrew the submission',
 };
 
 /** Comments and review decisions in one timeline, oldest first (ties keep decisions first). */

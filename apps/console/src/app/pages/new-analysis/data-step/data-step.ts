@@ -1,6 +1,6 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, model, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, model, output, signal, untracked } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -11,6 +11,7 @@ import { map } from 'rxjs';
 import { totalOf, type DataChoice, type DataSource } from './data-choice';
 import { DatasetUpload, type DatasetCounts } from './dataset-upload';
 import { parsePastedCounts, type ParsedCounts } from './pasted-counts';
+import { pastedText } from '../prefill';
 import { TypedCounts } from './typed-counts';
 
 /** The first step: where the counts come from — an uploaded file, pasted text, or typed rows. */
@@ -26,6 +27,8 @@ export class DataStep {
   readonly studies = input<Study[]>([]);
   readonly studyId = model<number | null>(null);
   readonly dataChange = output<DataChoice | null>();
+  /** Counts to start from (change and re-run): shown as pasted text, ready to edit. */
+  readonly initial = input<ParsedCounts | null>(null);
 
   /** On a phone the three sources stack instead of wrapping. */
   protected readonly narrow = toSignal(inject(BreakpointObserver).observe('(max-width: 520px)').pipe(map((state) => state.matches)), {
@@ -65,6 +68,14 @@ export class DataStep {
   });
 
   constructor() {
+    effect(() => {
+      const initial = this.initial();
+      if (!initial) return;
+      untracked(() => {
+        this.source.set('paste');
+        this.pasted.set(pastedText(initial));
+      });
+    });
     effect(() => this.dataChange.emit(this.choice()));
   }
 

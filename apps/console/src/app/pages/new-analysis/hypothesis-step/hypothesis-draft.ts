@@ -200,16 +200,17 @@ export function previewShares(labels: readonly string[], hypothesis: Hypothesis)
 }
 
 /** The form's draft for a hypothesis already given (a watch being changed). */
-export function draftFromHypothesis(hypothesis: Hypothesis): Partial<HypothesisDraft> {
+export function draftFromHypothesis(hypothesis: Hypothesis): HypothesisDraft {
+  const draft: HypothesisDraft = { kind: hypothesis.kind, values: [], ratio: '', family: 'poisson', params: {}, breaks: '' };
   switch (hypothesis.kind) {
     case 'proportions':
     case 'counts':
-      return { kind: hypothesis.kind, values: [...hypothesis.values] };
+      return { ...draft, values: [...hypothesis.values] };
     case 'ratio':
-      return { kind: 'ratio', ratio: hypothesis.values.join(':') };
+      return { ...draft, ratio: hypothesis.values.join(':') };
     case 'distribution':
-      return { kind: 'distribution', family: hypothesis.family, params: { ...hypothesis.params }, breaks: hypothesis.breaks?.join(', ') ?? '' };
+      return { ...draft, family: hypothesis.family, params: { ...hypothesis.params }, breaks: (hypothesis.breaks ?? []).join(', ') };
     default:
-      return { kind: hypothesis.kind };
+      return draft;
   }
 }

@@ -53,8 +53,9 @@ export class HypothesisStep {
   readonly observed = input<ParsedCounts | null>(null);
   /** The counts arrive later, batch by batch (a watch); `observed` then holds the categories only. */
   readonly streamed = input(false);
-  /** A hypothesis to start from, e.g. the one a watch being changed already has. */
+  /** A hypothesis to start from (a watch being changed, or change and re-run), filled in once the categories are known. */
   readonly initial = input<Hypothesis | null>(null);
+  private initialApplied = false;
   readonly hypothesisChange = output<Hypothesis | null>();
 
   protected readonly families = distributionFamilies;
@@ -125,17 +126,6 @@ export class HypothesisStep {
   });
 
   constructor() {
-    // A given hypothesis fills the form once its categories are known.
-    effect(() => {
-      const initial = this.initial();
-      const k = this.labels().length;
-      if (!initial || k === 0) return;
-      untracked(() => {
-        const values = this.form.controls.values;
-        while (values.length < k) values.push(this.fb.control<number | null>(null));
-        this.form.patchValue(draftFromHypothesis(initial));
-      });
-    });
     // One value field per category, kept in step with the data.
     effect(() => {
       const k = this.labels().length;
@@ -143,6 +133,18 @@ export class HypothesisStep {
         const values = this.form.controls.values;
         while (values.length < k) values.push(this.fb.control<number | null>(null));
         while (values.length > k) values.removeAt(values.length - 1);
+      });
+    });
+    // A given hypothesis fills the form once, after the value fields exist (one per category), so
+    // per-category values have somewhere to go; later edits of the counts do not undo the person's changes.
+    effect(() => {
+      const initial = this.initial();
+      const k = this.labels().length;
+      if (!initial || this.initialApplied || k === 0) return;
+      untracked(() => {
+        const draft = draftFromHypothesis(initial);
+        this.form.patchValue({ ...draft, values: draft.values?.length === k ? draft.values : [] });
+        this.initialApplied = true;
       });
     });
     effect(() => {

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, output } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, untracked } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatCheckboxModule } from '@angular/material/checkbox';
@@ -7,6 +7,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { testNames } from '@tallyfit/engine';
+import { optionsDraftOf } from '../prefill';
 import { buildOptions, DEFAULT_OPTIONS, TEST_NAMES, type AnalysisOptions, type OptionsDraft } from './analysis-options';
 
 /** The third step: which tests run, how the exact test runs, corrections, intervals and alpha. */
@@ -20,6 +21,8 @@ import { buildOptions, DEFAULT_OPTIONS, TEST_NAMES, type AnalysisOptions, type O
 export class OptionsStep {
   private readonly fb = inject(NonNullableFormBuilder);
   readonly optionsChange = output<AnalysisOptions | null>();
+  /** Options to start from (change and re-run). */
+  readonly initial = input<AnalysisOptions | null>(null);
 
   protected readonly testNames = testNames;
   protected readonly testLabels = TEST_NAMES;
@@ -53,6 +56,10 @@ export class OptionsStep {
   });
 
   constructor() {
+    effect(() => {
+      const initial = this.initial();
+      if (initial) untracked(() => this.form.patchValue(optionsDraftOf(initial)));
+    });
     effect(() => {
       const outcome = this.outcome();
       this.optionsChange.emit(outcome.ok ? outcome.options : null);
