@@ -19,6 +19,8 @@ export {
   adjustMethods,
   intervalMethods,
   type AnalysisSpec,
+  type ExactMethod,
+  type ExactOrdering,
   type Hypothesis,
   type DistributionFamily,
   type DistributionParams,
@@ -47,10 +49,9 @@ export {
 export { power, sampleSize, type PowerInput, type PowerResult, type SampleSizeInput, type SampleSizeResult } from './lib/planning/power';
 export { binomialTest, type BinomialTestResult } from './lib/binomial/binomial-test';
 export { mergeCategories, type MergeOutcome } from './lib/merge/merge-categories';
-export {
-  exactMultinomialTest,
-  type ExactOrdering,
-  type ExactMethod,
-  type ExactTestOptions,
-  type ExactTestOutcome,
-} from './lib/exact';
+export { exactMultinomialTest, type ExactTestOptions, type ExactTestOutcome } from './lib/exact';
+export { exactResultMethods, TEST_LABELS, type ExactResultMethod, type TestLabel } from './lib/spec/vocabulary';
+export { upgradeStoredResult } from './lib/result/upgrade-stored-result';
+export { effectSizeWord } from './lib/effect-size/cohens-w';
+export { formatEffectSize, formatP, formatPAt, formatPValue, formatPValueAt } from './lib/report/format-numbers';
+export { standsOut, type Departure } from './lib/report/stands-out';

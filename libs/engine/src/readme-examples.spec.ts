@@ -16,7 +16,7 @@ describe('README examples', () => {
   it('quick start', () => {
     const result = analyze({ observed: { labels: ['control', 'variant'], counts: [1752, 1895] }, hypothesis: { kind: 'equal' } });
     expect(result.report.line).toBe('χ²(1, N = 3,647) = 5.61, p = .018');
-    expect(result.conclusion.verdict).toBe('The observed counts differ from what was expected (p = 0.0179, below α = 0.05).');
+    expect(result.conclusion.verdict).toBe('The observed counts differ from what was expected (p = .018, below α = 0.05).');
   });
 
   it('invalid input', () => {

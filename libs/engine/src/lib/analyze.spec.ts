@@ -110,11 +110,11 @@ describe('analyze: choices and options', () => {
 
   it('computes exactly the requested tests, including Cressie–Read at λ = 2/3 or a chosen λ', () => {
     const result = analyze({ ...mendel, tests: ['cressie-read', 'pearson'] });
-    expect(Object.keys(result.tests)).toEqual(['cressieRead', 'pearson']);
-    expect(result.tests.cressieRead?.lambda).toBeCloseTo(2 / 3, 15);
-    expect(result.conclusion.test).toBe('cressieRead');
+    expect(Object.keys(result.tests)).toEqual(['cressie-read', 'pearson']);
+    expect(result.tests['cressie-read']?.lambda).toBeCloseTo(2 / 3, 15);
+    expect(result.conclusion.test).toBe('cressie-read');
     const lambdaOne = analyze({ ...mendel, tests: ['cressie-read'], cressieReadLambda: 1 });
-    expectClose(lambdaOne.tests.cressieRead?.statistic ?? NaN, 0.4700239808153477, { relative: 1e-12 });
+    expectClose(lambdaOne.tests['cressie-read']?.statistic ?? NaN, 0.4700239808153477, { relative: 1e-12 });
   });
 
   it("reports Williams' correction and uses it when asked", () => {
@@ -318,7 +318,7 @@ describe('analyze: properties', () => {
             order.map((i) => `renamed ${i}`),
           ),
         );
-        for (const key of ['pearson', 'g', 'cressieRead', 'exact'] as const) {
+        for (const key of ['pearson', 'g', 'cressie-read', 'exact'] as const) {
           expectClose(permuted.tests[key]!.p, original.tests[key]!.p, { relative: 1e-9, absolute: 1e-15 }, key);
         }
         order.forEach((from, to) => {

@@ -13,6 +13,7 @@ import { DEFAULT_MONTE_CARLO_SEED, exactMultinomialTest } from './exact';
 import { resolveHypothesis } from './hypothesis/resolve-hypothesis';
 import { shareIntervals } from './intervals/share-intervals';
 import { adjustPValues } from './posthoc/adjust-p-values';
+import { formatPAt } from './report/format-numbers';
 import { cressieReadLine, exactLine, gLine, pearsonLine } from './report/statistics-lines';
 import { writeUp } from './report/write-up';
 import type {
@@ -83,10 +84,8 @@ function runExactTest(
 }
 
 function chooseMainTest(requested: readonly TestName[] | undefined, ran: readonly TestName[], cochranOk: boolean): MainTest {
-  const asKey = (test: TestName): MainTest => (test === 'cressie-read' ? 'cressieRead' : test);
   if (ran.includes('exact') && (!cochranOk || !requested || requested[0] === 'exact')) return 'exact';
-  const first = ran.find((test) => test !== 'exact');
-  return first ? asKey(first) : 'exact';
+  return ran.find((test) => test !== 'exact') ?? 'exact';
 }
 
 function mainTestReason(
@@ -99,6 +98,9 @@ function mainTestReason(
     summary.cellsBelow1 > 0 ? ` (${summary.cellsBelow1} below 1)` : ''
   }, which breaks Cochran's rule for the chi-square approximation`;
   if (main === 'exact' && !summary.cochranOk) return rule;
+  if (!requested && !summary.cochranOk) {
+    return `the exact test cannot allow for parameters estimated from the data, although ${rule}`;
+  }
   if (main === 'exact') return 'it was requested and needs no large-sample approximation';
   if (requested) return summary.cochranOk ? 'it was requested' : `it was requested, although ${rule}`;
   return "every expected count was large enough for the chi-square approximation (Cochran's rule holds)";
@@ -114,21 +116,47 @@ function adviceFor(
   if (summary.cochranOk) {
     return [{ code: 'none', message: "Expected counts are large enough for the chi-square approximation (Cochran's rule holds)." }];
   }
-  const advice: Advice[] = [
-    {
-      code: 'use-exact',
-      message: `Use the exact multinomial test: ${summary.cellsBelow5} of ${labels.length} expected counts are below 5 (smallest ${Number(summary.minExpected.toPrecision(3))}), so chi-square p-values may be off.`,
-    },
-  ];
+  const smallCounts = `${summary.cellsBelow5} of ${labels.length} expected counts are below 5 (smallest ${Number(summary.minExpected.toPrecision(3))}), so chi-square p-values may be off`;
+  // With estimated parameters the exact test is not available (see analyze), so it is not advised.
+  // (the approximation-doubtful warning then says the p-value is approximate).
+  const advice: Advice[] =
+    estimatedParameters > 0 ? [] : [{ code: 'use-exact', message: `Use the exact multinomial test: ${smallCounts}.` }];
   const plan = proposeMerge(labels, expected, ordered, estimatedParameters);
   if (plan) {
     advice.push({
       code: 'merge-categories',
-      message: `Or merge sparse categories (${plan.groups.map((group) => group.label).join('; ')}) so that Cochran's rule holds; this changes the question being tested.`,
+      message: `${advice.length > 0 ? 'Or merge' : `Merge`} sparse categories (${plan.groups.map((group) => group.label).join('; ')}) so that Cochran's rule holds; this changes the question being tested.`,
       plan,
     });
   }
   return advice;
+}
+
+/** "1 parameter (lambda) was" / "2 parameters were", for sentences about estimates. */
+function estimatedPhrase(resolved: { estimatedParameters: number; estimatedNames?: string[] }): string {
+  const count = resolved.estimatedParameters;
+  const names = resolved.estimatedNames?.length ? ` (${resolved.estimatedNames.join(' and ')})` : '';
+  return `${count} parameter${count === 1 ? '' : 's'}${names} ${count === 1 ? 'was' : 'were'}`;
+}
+
+/**
+ * An expected share so small that (O − E)² / E overflows a double: no statistic, p-value or effect
+ * size can be computed, so the input is refused, naming the category.
+ */
+function shareTooSmall(
+  spec: AnalysisSpec,
+  labels: readonly string[],
+  active: readonly number[],
+  activeShares: readonly number[],
+): EngineInputError {
+  const smallest = activeShares.indexOf(Math.min(...activeShares));
+  const label = labels[active[smallest]];
+  const position = spec.observed.labels.indexOf(label);
+  const path = 'values' in spec.hypothesis && position >= 0 ? `hypothesis.values.${position}` : 'hypothesis';
+  return EngineInputError.at(
+    path,
+    `the expected share of category "${label}" (${activeShares[smallest].toPrecision(3)}) is too small to test against: the chi-square statistic overflows`,
+  );
 }
 
 function sum(values: readonly number[]): number {
@@ -178,30 +206,45 @@ export function analyze(input: AnalysisSpec, options: AnalyzeOptions = {}): Anal
 
   const summary = summariseExpectedCounts(activeExpected);
   const requested = spec.tests;
-  const ran: TestName[] = requested ? [...requested] : ['pearson', 'g', ...(summary.cochranOk ? [] : ['exact' as const])];
+  // The exact test takes the expected shares as known; with parameters estimated from these counts
+  // its p-value would be too large (the fit is closer than known shares would be), and only the
+  // chi-square tests' degrees of freedom allow for the estimates. So it is not offered then.
+  const estimated = resolved.estimatedParameters;
+  if (estimated > 0 && requested?.includes('exact')) {
+    throw EngineInputError.at(
+      `tests.${requested.indexOf('exact')}`,
+      `the exact test needs fully specified expected shares, but ${estimatedPhrase(resolved)} estimated from the data; give the parameter values, or use pearson or g, whose degrees of freedom allow for the estimate`,
+    );
+  }
+  const exactByDefault = !summary.cochranOk && estimated === 0;
+  const ran: TestName[] = requested ? [...requested] : ['pearson', 'g', ...(exactByDefault ? ['exact' as const] : [])];
 
   const pearsonValue = pearsonStatistic(activeCounts, activeExpected);
+  if (!Number.isFinite(pearsonValue)) throw shareTooSmall(spec, labels, active, activeShares);
   const tests: AnalysisTests = {};
   const lines: Report['lines'] = {};
   for (const test of ran) {
     if (test === 'pearson') {
       tests.pearson = chiSquareTestResult(pearsonValue, df);
-      lines.pearson = pearsonLine(tests.pearson, n);
+      lines.pearson = pearsonLine(tests.pearson, n, alpha);
     } else if (test === 'g') {
       const g = chiSquareTestResult(gStatistic(activeCounts, activeExpected), df);
       const q = williamsCorrection(active.length, n, df);
       const corrected = chiSquareTestResult(g.statistic / q, df);
       tests.g = { ...g, williams: { q, statistic: corrected.statistic, p: corrected.p, logP: corrected.logP } };
-      lines.g = spec.williams ? gLine(corrected, n, q) : gLine(g, n);
+      lines.g = spec.williams ? gLine(corrected, n, alpha, q) : gLine(g, n, alpha);
     } else if (test === 'cressie-read') {
       // `+ 0` turns a −0 from the spec into 0, which JSON would do anyway.
       const lambda = (spec.cressieReadLambda ?? DEFAULT_CRESSIE_READ_LAMBDA) + 0;
-      tests.cressieRead = { ...chiSquareTestResult(cressieReadStatistic(activeCounts, activeExpected, lambda), df), lambda };
-      lines.cressieRead = cressieReadLine(tests.cressieRead, n, lambda);
+      const statistic = cressieReadStatistic(activeCounts, activeExpected, lambda);
+      if (!Number.isFinite(statistic)) throw shareTooSmall(spec, labels, active, activeShares);
+      const cressieRead = { ...chiSquareTestResult(statistic, df), lambda };
+      tests['cressie-read'] = cressieRead;
+      lines['cressie-read'] = cressieReadLine(cressieRead, n, lambda, alpha);
     } else {
       const exact = runExactTest(spec, activeCounts, activeShares, options.onProgress);
       tests.exact = exact.result;
-      lines.exact = exactLine(exact.result, n);
+      lines.exact = exactLine(exact.result, n, alpha);
       warnings.push(...exact.warnings);
     }
   }
@@ -212,7 +255,11 @@ export function analyze(input: AnalysisSpec, options: AnalyzeOptions = {}): Anal
   if (!summary.cochranOk && !ran.includes('exact')) {
     warnings.push({
       code: 'approximation-doubtful',
-      message: `${summary.cellsBelow5} of ${active.length} expected counts are below 5, so the chi-square p-values may be inaccurate; the exact test was not requested.`,
+      message: `${summary.cellsBelow5} of ${active.length} expected counts are below 5, so the chi-square p-values may be inaccurate; ${
+        estimated > 0
+          ? `the exact test could not be used because ${estimatedPhrase(resolved)} estimated from the data (merging sparse categories helps)`
+          : 'the exact test was not requested'
+      }.`,
     });
   }
 
@@ -266,8 +313,8 @@ export function analyze(input: AnalysisSpec, options: AnalyzeOptions = {}): Anal
       significant: mainP < alpha,
       verdict:
         mainP < alpha
-          ? `The observed counts differ from what was expected (p = ${Number(mainP.toPrecision(3))}, below α = ${alpha}).`
-          : `These data show no detectable difference from what was expected (p = ${Number(mainP.toPrecision(3))}, not below α = ${alpha}).`,
+          ? `The observed counts differ from what was expected (${formatPAt(mainP, alpha)}, below α = ${alpha}).`
+          : `These data show no detectable difference from what was expected (${formatPAt(mainP, alpha)}, not below α = ${alpha}).`,
     },
     assumptions: {
       minExpected: summary.minExpected,

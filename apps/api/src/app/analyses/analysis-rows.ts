@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { ENGINE_VERSION, type AnalysisResult, type AnalysisSpec } from '@tallyfit/engine';
+import { ENGINE_VERSION, upgradeStoredResult, type AnalysisResult, type AnalysisSpec } from '@tallyfit/engine';
 import type { AnalysisRecord, AnalysisStatus, AnalysisSummary } from '@tallyfit/contracts';
 import { isoDate } from '../http/db-time';
 
@@ -32,10 +32,8 @@ export interface AnalysisRow {
   updated_at: string | Date | null;
 }
 
-/** Test names as the spec spells them, stored comma-wrapped so one LIKE finds one test. */
-const SPEC_TEST_NAMES: Record<string, string> = { pearson: 'pearson', g: 'g', exact: 'exact', cressieRead: 'cressie-read' };
-const testsRunColumn = (result: AnalysisResult) =>
-  ',' + Object.keys(result.tests).map((name) => SPEC_TEST_NAMES[name] ?? name).join(',') + ',';
+/** The tests that ran, by their spec names (the result's keys), stored comma-wrapped so one LIKE finds one test. */
+const testsRunColumn = (result: AnalysisResult) => ',' + Object.keys(result.tests).join(',') + ',';
 
 /** The columns derived from a result, so lists can filter and sort without reading result_json. */
 export function resultColumns(spec: AnalysisSpec, result: AnalysisResult) {
@@ -101,5 +99,6 @@ export const toSummary = (row: AnalysisRow): AnalysisSummary => ({
 export const toRecord = (row: AnalysisRow): AnalysisRecord => ({
   ...commonFields(row),
   spec: JSON.parse(row.spec_json),
-  result: JSON.parse(row.result_json),
+  // Results stored by engine 0.1.x keyed the Cressie–Read test `cressieRead`; read them in today's form.
+  result: upgradeStoredResult(JSON.parse(row.result_json)),
 });

@@ -1,4 +1,5 @@
 import PDFDocument from 'pdfkit';
+import { formatPValueAt } from '@tallyfit/engine';
 import { formatNumber } from './report-numbers';
 import { drawObservedExpectedChart } from './pdf-bar-chart';
 import type { PdfFonts } from './pdf-fonts';
@@ -56,7 +57,7 @@ function writeReport(text: PdfText, source: ReportSource): void {
         testName(key),
         withStatistic.statistic === undefined ? '—' : formatNumber(withStatistic.statistic, 3),
         withStatistic.df === undefined ? '—' : String(withStatistic.df),
-        formatNumber(withStatistic.p, 4),
+        formatPValueAt(withStatistic.p, result.conclusion.alpha),
         withStatistic.method ? `${withStatistic.method}${withStatistic.se ? `, SE ${formatNumber(withStatistic.se, 2)}` : ''}` : '',
       ];
     });

@@ -1,4 +1,4 @@
-import type { AnalysisResult } from '@tallyfit/engine';
+import { TEST_LABELS, type AnalysisResult, type TestName } from '@tallyfit/engine';
 
 /** Everything a report says about one stored analysis. */
 export interface ReportSource {
@@ -14,14 +14,8 @@ export interface ReportSource {
   result: AnalysisResult;
 }
 
-const testNames: Record<string, string> = {
-  pearson: "Pearson's chi-square",
-  g: 'G-test (likelihood ratio)',
-  cressieRead: 'Cressie–Read power divergence',
-  exact: 'Exact multinomial test',
-};
-
-export const testName = (key: string) => testNames[key] ?? key;
+/** The engine's own heading for a test key (a stored 0.1.x key is upgraded before it gets here). */
+export const testName = (key: string) => (key in TEST_LABELS ? TEST_LABELS[key as TestName].name : key);
 
 /** "2026-12-02 14:05 UTC": a date a reader of a printed report understands without a time zone guess. */
 export function readableDate(iso: string): string {

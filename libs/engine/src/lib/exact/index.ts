@@ -13,12 +13,13 @@
  * exactly while the counted work stays within `workBudget` and samples otherwise.
  */
 import { EngineInputError } from '../spec/engine-input-error';
+import { SHARE_SUM_EXACT_TOLERANCE } from '../spec/share-tolerance';
+import { exactMethods, exactOrderings, type ExactMethod, type ExactOrdering } from '../spec/vocabulary';
 import { OrderingName } from './category-terms';
 import { exactSearch } from './exact-search';
 import { monteCarloTest } from './monte-carlo-test';
 
-export type ExactOrdering = 'probability' | 'llr' | 'pearson';
-export type ExactMethod = 'auto' | 'enumerate' | 'monte-carlo';
+export type { ExactMethod, ExactOrdering } from '../spec/vocabulary';
 
 export interface ExactTestOptions {
   ordering: ExactOrdering;
@@ -60,9 +61,6 @@ export const DEFAULT_WORK_BUDGET = 30_000_000;
 /** Even `method: 'enumerate'` stops here (~1.6 GB of lists) rather than exhaust memory. */
 export const ENUMERATION_WORK_LIMIT = 100_000_000;
 
-const ORDERINGS: readonly ExactOrdering[] = ['probability', 'llr', 'pearson'];
-const METHODS: readonly ExactMethod[] = ['auto', 'enumerate', 'monte-carlo'];
-const SHARE_SUM_TOLERANCE = 1e-6;
 
 interface CanonicalInput {
   n: number;
@@ -104,8 +102,8 @@ function canonicalInput(counts: readonly number[], probabilities: readonly numbe
     .sort((a, b) => a.share - b.share || a.count - b.count);
   // Summed in canonical order, so the renormalised shares do not depend on the input order.
   const sum = kept.reduce((total, category) => total + category.share, 0);
-  if (!(Math.abs(sum - 1) <= SHARE_SUM_TOLERANCE)) {
-    throw EngineInputError.at('probabilities', `must sum to 1 (within ${SHARE_SUM_TOLERANCE}), got ${sum}`);
+  if (!(Math.abs(sum - 1) <= SHARE_SUM_EXACT_TOLERANCE)) {
+    throw EngineInputError.at('probabilities', `must sum to 1 (within ${SHARE_SUM_EXACT_TOLERANCE}), got ${sum}`);
   }
   return {
     n: kept.reduce((total, category) => total + category.count, 0),
@@ -116,11 +114,11 @@ function canonicalInput(counts: readonly number[], probabilities: readonly numbe
 
 function checkOptions(options: ExactTestOptions): void {
   if (!options || typeof options !== 'object') throw EngineInputError.at('options', 'must be an object');
-  if (!ORDERINGS.includes(options.ordering)) {
-    throw EngineInputError.at('options.ordering', `must be one of ${ORDERINGS.join(', ')}, got ${String(options.ordering)}`);
+  if (!exactOrderings.includes(options.ordering)) {
+    throw EngineInputError.at('options.ordering', `must be one of ${exactOrderings.join(', ')}, got ${String(options.ordering)}`);
   }
-  if (!METHODS.includes(options.method)) {
-    throw EngineInputError.at('options.method', `must be one of ${METHODS.join(', ')}, got ${String(options.method)}`);
+  if (!exactMethods.includes(options.method)) {
+    throw EngineInputError.at('options.method', `must be one of ${exactMethods.join(', ')}, got ${String(options.method)}`);
   }
   if (options.samples !== undefined && !(Number.isSafeInteger(options.samples) && options.samples >= 1)) {
     throw EngineInputError.at('options.samples', `must be a whole number >= 1, got ${String(options.samples)}`);

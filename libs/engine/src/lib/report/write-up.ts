@@ -3,7 +3,10 @@
  * cautions every report carries, and the whole as one Markdown document.
  */
 import type { AnalysisResult, CategoryRow, MainTest, Report } from '../result/analysis-result';
-import { formatCount, formatPValue, formatPercent, formatShare, formatStatistic, groupDigits } from './format-numbers';
+import { effectSizeWord } from '../effect-size/cohens-w';
+import { formatCount, formatEffectSize, formatPValueAt, formatPercent, formatShare, formatStatistic, groupDigits } from './format-numbers';
+import { standsOut } from './stands-out';
+import { TEST_LABELS } from '../spec/vocabulary';
 
 export interface WriteUpInput {
   result: Omit<AnalysisResult, 'report' | 'engineVersion'>;
@@ -18,12 +21,6 @@ export interface WriteUpInput {
   merged: boolean;
 }
 
-const TEST_NAMES: Record<MainTest, string> = {
-  pearson: "Pearson's chi-square goodness-of-fit test",
-  g: 'the likelihood-ratio G-test',
-  cressieRead: 'the Cressie–Read power-divergence test',
-  exact: 'the exact multinomial test',
-};
 
 function listInProse(items: readonly string[]): string {
   if (items.length <= 1) return items.join('');
@@ -40,12 +37,12 @@ function methodsSentence(input: WriteUpInput): string {
   const { result } = input;
   const others = (Object.keys(input.lines) as MainTest[]).filter((test) => test !== input.mainTest);
   const exactWithBinomial = result.tests.exact?.method === 'binomial';
-  const mainName = input.mainTest === 'exact' && exactWithBinomial ? 'the two-sided exact binomial test' : TEST_NAMES[input.mainTest];
+  const mainName = input.mainTest === 'exact' && exactWithBinomial ? 'the two-sided exact binomial test' : TEST_LABELS[input.mainTest].prose;
   const sentences = [
     `The observed counts in ${result.k} categories (N = ${groupDigits(result.n)}) were compared with ${result.hypothesis.description} using ${mainName}${input.williamsUsed && input.mainTest === 'g' ? " with Williams' correction" : ''}, because ${input.reason}.`,
   ];
   if (others.length > 0) {
-    sentences.push(`For comparison, ${listInProse(others.map((test) => TEST_NAMES[test]))} ${others.length === 1 ? 'was' : 'were'} also computed.`);
+    sentences.push(`For comparison, ${listInProse(others.map((test) => TEST_LABELS[test].prose))} ${others.length === 1 ? 'was' : 'were'} also computed.`);
   }
   if (result.tests.exact && result.tests.exact.method === 'monte-carlo') {
     sentences.push(
@@ -80,13 +77,14 @@ function resultsSentence(input: WriteUpInput): string {
       : `The observed counts did not differ detectably from the expected counts, ${input.mainLine}.`,
   ];
   const interval = result.effectSize.interval;
+  const shown = formatEffectSize(result.effectSize.w, effectSizeWord, interval);
   sentences.push(
-    `The size of the departure was w = ${formatShare(result.effectSize.w)} (${result.effectSize.size})${
-      interval ? `, ${formatPercent(interval.level)} CI [${formatShare(interval.low)}, ${formatShare(interval.high)}]` : ''
+    `The size of the departure was w = ${shown.w} (${result.effectSize.size})${
+      interval ? `, ${formatPercent(interval.level)} CI [${shown.low}, ${shown.high}]` : ''
     }.`,
   );
   if (significant) {
-    const drivers = result.categories.filter((row) => row.pAdjusted < result.conclusion.alpha);
+    const drivers = result.categories.filter((row) => standsOut(row, result.conclusion.alpha) !== undefined);
     if (drivers.length > 0) {
       sentences.push(`The difference is driven by ${listInProse(drivers.map(categoryDeparture))}.`);
     } else {
@@ -113,8 +111,8 @@ function markdownTable(result: WriteUpInput['result']): string {
     'Expected',
     'Observed share',
     'Expected share',
-    'Residual',
-    'Adjusted residual',
+    'Pearson residual (O − E)/√E',
+    'Adjusted residual (O − E)/√(E(1 − p₀))',
     result.posthoc.adjust === 'none' ? 'p' : 'p (adjusted)',
     `${level} interval`,
   ];
@@ -126,7 +124,7 @@ function markdownTable(result: WriteUpInput['result']): string {
     formatShare(row.expectedShare),
     formatStatistic(row.residual),
     formatStatistic(row.adjustedResidual),
-    formatPValue(result.posthoc.adjust === 'none' ? row.p : row.pAdjusted),
+    formatPValueAt(result.posthoc.adjust === 'none' ? row.p : row.pAdjusted, result.conclusion.alpha),
     `[${formatShare(row.interval.low)}, ${formatShare(row.interval.high)}]`,
   ]);
   const align = header.map((_, index) => (index === 0 ? '---' : '---:'));
@@ -144,7 +142,7 @@ function cautions(input: WriteUpInput): string[] {
   }
   if (input.result.hypothesis.estimatedParameters > 0) {
     list.push(
-      'Parameters estimated from the same data make the hypothesis fit the data more closely; the degrees of freedom were reduced to allow for this, and the test asks whether the family fits, not whether particular parameter values hold.',
+      'Parameters estimated from the same data make the hypothesis fit the data more closely; the chi-square degrees of freedom were reduced to allow for this (the exact test cannot allow for it and was not used), and the test asks whether the family fits, not whether particular parameter values hold.',
     );
   }
   list.push(

@@ -1,9 +1,10 @@
 /**
  * The result of `analyze`: plain JSON (no NaN, no Infinity), camelCase keys that other parts of
- * Tallyfit and its users rely on. Optional keys are absent when the test or option was not run.
+ * Tallyfit and its users rely on; tests are keyed by their spec names (`cressie-read`). Optional keys are absent when the test or option was not run.
  */
 import type { ChiSquareTestResult } from '../statistics/chi-square-test';
 import type { EngineWarning } from './engine-warning';
+import type { AdjustMethod, ExactOrdering, ExactResultMethod, IntervalMethod, TestName } from '../spec/vocabulary';
 
 export type { EngineWarning } from './engine-warning';
 export type { ChiSquareTestResult } from '../statistics/chi-square-test';
@@ -18,9 +19,9 @@ export interface CressieReadTestResult extends ChiSquareTestResult {
 }
 
 export interface ExactTestResult {
-  ordering: 'probability' | 'llr' | 'pearson';
+  ordering: ExactOrdering;
   /** `binomial` when k = 2 and the ordering is by probability (the two-sided exact binomial test) */
-  method: 'enumerate' | 'monte-carlo' | 'binomial';
+  method: ExactResultMethod;
   p: number;
   logP: number;
   /** Monte Carlo standard error of p */
@@ -34,10 +35,11 @@ export interface ExactTestResult {
   massBound?: number;
 }
 
+/** Keyed by the test names of the spec (`testNames`). */
 export interface AnalysisTests {
   pearson?: ChiSquareTestResult;
   g?: GTestResult;
-  cressieRead?: CressieReadTestResult;
+  'cressie-read'?: CressieReadTestResult;
   exact?: ExactTestResult;
 }
 
@@ -104,7 +106,7 @@ export interface Report {
   /** APA-style statistics line of the main test, e.g. `χ²(3, N = 556) = 0.47, p = .925` */
   line: string;
   /** the statistics line of every test that was run */
-  lines: { pearson?: string; g?: string; cressieRead?: string; exact?: string };
+  lines: Partial<Record<TestName, string>>;
   methods: string;
   results: string;
   /** Markdown table of the categories */
@@ -114,7 +116,8 @@ export interface Report {
   markdown: string;
 }
 
-export type MainTest = 'pearson' | 'g' | 'cressieRead' | 'exact';
+/** The test a verdict rests on: one of the spec's test names. */
+export type MainTest = TestName;
 
 export interface Conclusion {
   /** the test the verdict rests on */
@@ -149,8 +152,8 @@ export interface AnalysisResult {
   assumptions: AssumptionCheck;
   effectSize: EffectSize;
   categories: CategoryRow[];
-  intervals: { method: 'wilson' | 'goodman' | 'quesenberry-hurst' | 'sison-glaz'; level: number; simultaneous: boolean };
-  posthoc: { adjust: 'holm' | 'bonferroni' | 'none' };
+  intervals: { method: IntervalMethod; level: number; simultaneous: boolean };
+  posthoc: { adjust: AdjustMethod };
   report: Report;
   engineVersion: string;
 }

@@ -5,6 +5,20 @@
  */
 import { z } from 'zod';
 import { SHARE_SUM_ROUNDING_TOLERANCE } from './share-tolerance';
+import { adjustMethods, exactMethods, exactOrderings, intervalMethods, testNames } from './vocabulary';
+
+export {
+  adjustMethods,
+  exactMethods,
+  exactOrderings,
+  intervalMethods,
+  testNames,
+  type AdjustMethod,
+  type ExactMethod,
+  type ExactOrdering,
+  type IntervalMethod,
+  type TestName,
+} from './vocabulary';
 
 const finiteNumber = (what: string) =>
   z.number({ error: (issue) => (issue.input === undefined ? `${what} is required` : `${what} must be a finite number`) });
@@ -87,11 +101,6 @@ export const hypothesisSchema = z.discriminatedUnion(
 );
 export type Hypothesis = z.infer<typeof hypothesisSchema>;
 
-export const testNames = ['pearson', 'g', 'exact', 'cressie-read'] as const;
-export type TestName = (typeof testNames)[number];
-
-export const exactOrderings = ['probability', 'llr', 'pearson'] as const;
-export const exactMethods = ['auto', 'enumerate', 'monte-carlo'] as const;
 
 export const exactOptionsSchema = z.strictObject({
   ordering: z.enum(exactOrderings, { error: `exact.ordering must be one of ${exactOrderings.join(', ')}` }).optional(),
@@ -108,10 +117,6 @@ export const exactOptionsSchema = z.strictObject({
     .optional(),
 });
 
-export const adjustMethods = ['holm', 'bonferroni', 'none'] as const;
-export type AdjustMethod = (typeof adjustMethods)[number];
-export const intervalMethods = ['wilson', 'goodman', 'quesenberry-hurst', 'sison-glaz'] as const;
-export type IntervalMethod = (typeof intervalMethods)[number];
 
 export const mergedCategorySchema = z.strictObject({
   label,

@@ -76,8 +76,8 @@ describe('AnalysisPage', () => {
 
   it('puts the decision in plain words and the tests side by side', async () => {
     await render('analyst');
-    expect(text('.headline h2')).toBe('The observed counts are consistent with what was expected.');
-    expect(text('.headline')).toContain('This does not prove the expectation holds.');
+    expect(text('.headline h2')).toBe('These data could not detect a difference from what was expected.');
+    expect(text('.headline')).toContain('This does not show that the expectation holds.');
     expect(Array.from(root.querySelectorAll('.tests tbody th')).map((th) => th.textContent?.replace(/\s+/g, ' ').trim())).toEqual([
       "Pearson's chi-square",
       'G-test (likelihood ratio)',

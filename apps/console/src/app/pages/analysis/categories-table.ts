@@ -1,10 +1,9 @@
 import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
-import type { AnalysisResult } from '@tallyfit/engine';
+import { standsOut, type AnalysisResult } from '@tallyfit/engine';
 import { formatP } from '../../core/format/p-value';
-import { RESIDUAL_GUIDE } from './chart-options';
 
-/** Each category's observed and expected counts, share, residuals, adjusted p and interval. */
+/** Each category's observed and expected counts, share, residuals, adjusted p and interval, marked where it stands out. */
 @Component({
   selector: 'tf-categories-table',
   imports: [DecimalPipe],
@@ -14,7 +13,8 @@ import { RESIDUAL_GUIDE } from './chart-options';
 })
 export class CategoriesTable {
   readonly result = input.required<AnalysisResult>();
-  protected readonly guide = RESIDUAL_GUIDE;
+  /** the engine's rule, the same one its write-up uses for the categories that drive a difference */
+  protected readonly standsOut = standsOut;
   protected readonly formatP = formatP;
 
   protected adjustWord(adjust: AnalysisResult['posthoc']['adjust']): string {

@@ -19,7 +19,9 @@ describe('headlineFor', () => {
   it('does not claim a large p-value proves the expectation', () => {
     const even = analyze({ observed: { labels: ['a', 'b'], counts: [50, 52] }, hypothesis: { kind: 'equal' } });
     const headline = headlineFor(even);
-    expect(headline.decision).toBe('The observed counts are consistent with what was expected.');
-    expect(headline.evidence).toContain('not below the chosen alpha of 0.05. This does not prove the expectation holds.');
+    expect(headline.decision).toBe('These data could not detect a difference from what was expected.');
+    expect(headline.evidence).toContain('not below the chosen alpha of 0.05. This does not show that the expectation holds.');
+    // w = 2/102 ≈ 0.02 (two equal shares: w = |O₁ − O₂| / N), negligible by Cohen's (1988) words.
+    expect(headline.size).toBe('The estimated departure is negligible (w = 0.02).');
   });
 });

@@ -2,7 +2,7 @@
  * The tests of a result as rows to show side by side: name, statistic, df, p (APA style), and how
  * the p-value was found (for the exact test: counted exactly or simulated, with its standard error).
  */
-import type { AnalysisResult, MainTest } from '@tallyfit/engine';
+import { TEST_LABELS, type AnalysisResult, type MainTest } from '@tallyfit/engine';
 import { formatP, formatStatistic } from '../../core/format/p-value';
 
 export interface TestRow {
@@ -49,29 +49,30 @@ export function testRows(result: AnalysisResult, williams: boolean): TestRow[] {
       symbol,
       statistic: formatStatistic(test.statistic),
       df: String(test.df),
-      p: formatP(test.p),
+      p: formatP(test.p, conclusion.alpha),
       how: [how, smallPNote(test.p, test.logP)].filter(Boolean).join(' '),
       main: conclusion.test === key,
     });
-  if (tests.pearson) chiSquare('pearson', "Pearson's chi-square", 'X²', tests.pearson);
+  if (tests.pearson) chiSquare('pearson', TEST_LABELS.pearson.name, 'X²', tests.pearson);
   if (tests.g) {
-    chiSquare('g', 'G-test (likelihood ratio)', 'G', tests.g);
+    chiSquare('g', TEST_LABELS.g.name, 'G', tests.g);
     if (williams) {
       const corrected = tests.g.williams;
       chiSquare('williams', "G-test with Williams' correction", 'G/q', { ...corrected, df: tests.g.df }, `q = ${corrected.q.toFixed(4)}.`);
     }
   }
-  if (tests.cressieRead) {
-    chiSquare('cressieRead', `Cressie–Read (λ = ${Number(tests.cressieRead.lambda.toFixed(3))})`, 'CR', tests.cressieRead);
+  const cressieRead = tests['cressie-read'];
+  if (cressieRead) {
+    chiSquare('cressie-read', `${TEST_LABELS['cressie-read'].short} (λ = ${Number(cressieRead.lambda.toFixed(3))})`, 'CR', cressieRead);
   }
   if (tests.exact) {
     rows.push({
       key: 'exact',
-      name: 'Exact multinomial test',
+      name: TEST_LABELS.exact.name,
       symbol: '—',
       statistic: '—',
       df: '—',
-      p: formatP(tests.exact.p),
+      p: formatP(tests.exact.p, conclusion.alpha),
       how: [exactHow(tests.exact), smallPNote(tests.exact.p, tests.exact.logP)].filter(Boolean).join(' '),
       main: conclusion.test === 'exact',
     });
