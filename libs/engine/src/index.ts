@@ -55,3 +55,15 @@ export { upgradeStoredResult } from './lib/result/upgrade-stored-result';
 export { effectSizeWord } from './lib/effect-size/cohens-w';
 export { formatEffectSize, formatP, formatPAt, formatPValue, formatPValueAt } from './lib/report/format-numbers';
 export { standsOut, type Departure } from './lib/report/stands-out';
+export {
+  categoriesMarkdownTable,
+  categoryCells,
+  categoryHeadings,
+  effectSizeText,
+  exactHowComputed,
+  formatExpectedCount,
+  shareDecimals,
+  testCells,
+  type CategoryCells,
+  type TestCells,
+} from './lib/report/shown-numbers';

@@ -8,6 +8,7 @@ import { HttpError } from '../http/http-error';
 import type { MailService } from '../mail/mail-service';
 import { markdownReport } from '../reports/markdown-report';
 import { analysisLink, downloadName, reportSourceFor } from '../reports/reports.service';
+import { shareMailBody } from './share-mail';
 
 interface ShareRow {
   id: number;
@@ -32,22 +33,6 @@ const toShare = (row: ShareRow): Share => ({
   createdAt: isoDate(row.created_at),
 });
 
-/** The plain-text body: who shares what, their note, the link, then the whole Markdown report. */
-function mailBody(sender: User, title: string, link: string, report: string, message?: string): string {
-  return [
-    `${sender.name} shared the Tallyfit analysis "${title}" with you.`,
-    ...(message ? ['', message] : []),
-    '',
-    `Open it in Tallyfit: ${link}`,
-    '',
-    'The report follows and is attached as Markdown.',
-    '',
-    '---',
-    '',
-    report,
-  ].join('\n');
-}
-
 /**
  * Sends an analysis's report by e-mail and records the share with its audit event. When the mail
  * server does not take the message, nothing was sent: the share is recorded as failed with the
@@ -70,7 +55,7 @@ export async function shareAnalysis(
     await mail.send({
       to: recipients,
       subject: `Tallyfit analysis: ${source.title}`,
-      text: mailBody(caller, source.title, link, report, request.message),
+      ...shareMailBody(caller, source.title, link, report, request.message),
       replyTo: caller.email,
       attachments: [{ filename: downloadName(source, 'md'), content: report, contentType: 'text/markdown; charset=utf-8' }],
     });
