@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
-import type { AnalysisSpec } from '@tallyfit/engine';
-import type { AnalysisRecord, RerunAnalysisResponse, UpdateAnalysisRequest, User } from '@tallyfit/contracts';
+import { ENGINE_VERSION, type AnalysisSpec } from '@tallyfit/engine';
+import type { AnalysisChanges, AnalysisRecord, RerunAnalysisResponse, UpdateAnalysisRequest, User } from '@tallyfit/contracts';
 import { insertWithAudit, recordAudit } from '../audit/audit.service';
 import type { EngineRunner } from '../engine/engine-runner';
 import { now } from '../http/db-time';
@@ -122,6 +122,10 @@ export async function rerunAnalysis(
   if (!previous.isLatest) throw conflict(`analysis ${id} has a newer version; re-run the latest one`);
   if (previous.study) await requireStudyContributor(db, caller, previous.study.id);
   const nextSpec = spec ?? previous.spec;
+  // Same spec on the same engine would only store a duplicate version with the same figures.
+  if (previous.engineVersion === ENGINE_VERSION && JSON.stringify(nextSpec) === JSON.stringify(previous.spec)) {
+    throw conflict(`analysis ${id} was already run with the current engine (${ENGINE_VERSION}) and this spec; change the spec to run it again`);
+  }
   const result = await engine.analyze(nextSpec);
   const newId = await db.transaction(async (trx) => {
     // Only one re-run of a version may win: the update claims the version, a racing one finds nothing to claim.
@@ -158,6 +162,17 @@ export async function rerunAnalysis(
   });
   const analysis = await getAnalysisById(db, newId);
   return { analysis, changes: compareRuns(previous, { engineVersion: analysis.engineVersion, spec: nextSpec, result }) };
+}
+
+/**
+ * What a version changed against the one it re-ran, recomputed from the two stored versions so it
+ * reads the same after a reload; null for a first version.
+ */
+export async function changesSincePrevious(db: Knex, caller: User, id: number): Promise<AnalysisChanges | null> {
+  const analysis = await getReadableAnalysis(db, caller, id);
+  if (analysis.previousId === null) return null;
+  const previous = await getAnalysisById(db, analysis.previousId);
+  return compareRuns(previous, analysis);
 }
 
 /** Soft-deletes an analysis with all its versions; only its author or an admin may. The audit trail keeps it. */

@@ -1,6 +1,6 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
-import type { AnalysisRecord, AnalysisSummary, CreateAnalysisRequest, Page, RerunAnalysisResponse } from '@tallyfit/contracts';
+import type { AnalysisChanges, AnalysisRecord, AnalysisSummary, CreateAnalysisRequest, Page, RerunAnalysisResponse } from '@tallyfit/contracts';
 import type { AnalysisSpec } from '@tallyfit/engine';
 import { map, type Observable } from 'rxjs';
 import { pageHandlesErrors } from '../notify/page-handles-errors';
@@ -18,6 +18,11 @@ export class AnalysesApi {
   /** Runs an analysis again as a new version (on today's engine), with its stored spec or a changed one. */
   rerun(id: number, spec?: AnalysisSpec): Observable<RerunAnalysisResponse> {
     return this.http.post<RerunAnalysisResponse>(`/api/v1/analyses/${id}/rerun`, spec ? { spec } : {}, { context: pageHandlesErrors() });
+  }
+
+  /** What a version changed against the one it re-ran (null for a first version); the page shows it after a reload too. */
+  changes(id: number): Observable<AnalysisChanges | null> {
+    return this.http.get<AnalysisChanges | null>(`/api/v1/analyses/${id}/changes`, { context: pageHandlesErrors() });
   }
 
   /** The newest page (up to 100) of the signed-in person's own analyses. */
