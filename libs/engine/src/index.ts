@@ -67,3 +67,4 @@ export {
   type CategoryCells,
   type TestCells,
 } from './lib/report/shown-numbers';
+export { SHARE_SUM_EXACT_TOLERANCE, SHARE_SUM_ROUNDING_TOLERANCE } from './lib/spec/share-tolerance';

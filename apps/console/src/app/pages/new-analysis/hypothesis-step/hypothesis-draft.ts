@@ -5,6 +5,7 @@
  */
 import { analyze, EngineInputError, type DistributionFamily, type DistributionParams, type Hypothesis } from '@tallyfit/engine';
 import type { ParsedCounts } from '../data-step/pasted-counts';
+import { SHARE_SUM_ROUNDING_TOLERANCE } from '@tallyfit/engine';
 
 export type HypothesisKind = Hypothesis['kind'];
 export type ParamName = keyof DistributionParams;
@@ -52,8 +53,8 @@ export const FAMILY_NAMES: Record<DistributionFamily, string> = {
   benford: "Benford's law (first digits 1–9)",
 };
 
-/** Shares may miss 1 by rounding (a published table's precision); the engine renormalises within this. */
-export const SHARE_SUM_TOLERANCE = 0.01;
+/** Shares may miss 1 by rounding (a published table's precision); the engine's rule, renormalised within it. */
+export const SHARE_SUM_TOLERANCE = SHARE_SUM_ROUNDING_TOLERANCE;
 
 export function sumOf(values: readonly (number | null)[]): number {
   return values.reduce<number>((total, value) => total + (value ?? 0), 0);
