@@ -18,6 +18,7 @@ import { AuthSession } from '../../core/auth/auth-session';
 import { can } from '@tallyfit/contracts';
 import { saveFile } from '../../core/files/save-file';
 import { LOADING, toLoadState } from '../../core/load/load-state';
+import { CountPipe } from '../../shared/words/count-words';
 import { AnalysisStatusChip } from '../../shared/analysis-status/analysis-status-chip';
 import { AssumptionCheckPanel, type Remedy } from './assumption-check';
 import { CategoriesTable } from './categories-table';
@@ -41,6 +42,7 @@ interface RerunNote {
 @Component({
   selector: 'tf-analysis-page',
   imports: [
+    CountPipe,
     DatePipe,
     DecimalPipe,
     RouterLink,
