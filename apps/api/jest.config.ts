@@ -6,7 +6,10 @@ export default {
   testTimeout: 30_000,
   transform: {
     '^.+\\.ts$': ['ts-jest', { tsconfig: '<rootDir>/tsconfig.spec.json' }],
+    // marked ships only as an ES module; Node requires it natively, Jest's module system needs it compiled.
+    '^.+/node_modules/marked/.+\\.js$': ['ts-jest', { tsconfig: { allowJs: true, module: 'commonjs' } }],
   },
+  transformIgnorePatterns: ['/node_modules/(?!marked/)'],
   moduleFileExtensions: ['ts', 'js'],
   coverageDirectory: '../../coverage/apps/api',
 };

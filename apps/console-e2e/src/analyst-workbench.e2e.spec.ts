@@ -61,7 +61,7 @@ describe('an analyst uploads a file, fixes a failed assumption, downloads and sh
     await page.getByRole('heading', { name: 'New analysis' }).waitFor();
     await page.getByRole('radio', { name: 'Upload a file' }).click();
     await page.getByRole('combobox', { name: 'Study the file belongs to' }).click();
-    await page.getByRole('option', { name: 'Northwind storefront checks' }).click();
+    await page.getByRole('option', { name: 'Bramblewick Goods storefront checks' }).click();
     await page.locator('tf-dataset-upload input[type="file"]').setInputFiles(csvPath);
     await page.getByText('Stored line-3-defects.csv: 100 rows, 3 columns.').waitFor();
     await page.getByRole('combobox', { name: 'Column with the category' }).click();

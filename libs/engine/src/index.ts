@@ -55,8 +55,20 @@ export { exactMultinomialTest, type ExactTestOptions, type ExactTestOutcome } fr
 export { exactResultMethods, TEST_LABELS, type ExactResultMethod, type TestLabel } from './lib/spec/vocabulary';
 export { upgradeStoredResult } from './lib/result/upgrade-stored-result';
 export { effectSizeWord } from './lib/effect-size/cohens-w';
-export { formatEffectSize, formatP, formatPAt, formatPValue, formatPValueAt } from './lib/report/format-numbers';
+export { formatEffectSize, formatP, formatPAt, formatPValue, formatPValueAt, formatShare, formatStatistic, groupDigits } from './lib/report/format-numbers';
 export { standsOut, type Departure } from './lib/report/stands-out';
+export {
+  categoriesMarkdownTable,
+  categoryCells,
+  categoryHeadings,
+  effectSizeText,
+  exactHowComputed,
+  formatExpectedCount,
+  shareDecimals,
+  testCells,
+  type CategoryCells,
+  type TestCells,
+} from './lib/report/shown-numbers';
 export { SHARE_SUM_EXACT_TOLERANCE, SHARE_SUM_ROUNDING_TOLERANCE } from './lib/spec/share-tolerance';
 export {
   analyzeSequential,

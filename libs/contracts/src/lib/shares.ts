@@ -34,6 +34,8 @@ export const outboxMessageSchema = z.object({
   to: z.array(z.string()),
   subject: z.string(),
   text: z.string(),
+  /** the HTML alternative, when the message had one */
+  html: z.string().nullable(),
   attachments: z.array(z.object({ fileName: z.string(), contentType: z.string(), sizeBytes: z.number().int() })),
 });
 export type OutboxMessage = z.infer<typeof outboxMessageSchema>;

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { z } from 'zod';
 import {
+  analysisChangesSchema,
   analysisRecordSchema,
   analysisSummarySchema,
   createAnalysisRequestSchema,
@@ -16,7 +17,7 @@ import type { Config } from '../config';
 import type { EngineRunner } from '../engine/engine-runner';
 import { defineRoute, type RouteDefinition } from '../http/route-table';
 import { listAnalyses, listVersions } from './analyses-history';
-import { createAnalysis, deleteAnalysis, getReadableAnalysis, rerunAnalysis, updateAnalysis } from './analyses.service';
+import { changesSincePrevious, createAnalysis, deleteAnalysis, getReadableAnalysis, rerunAnalysis, updateAnalysis } from './analyses.service';
 import { createAnalysisFromDataset } from './analysis-from-dataset';
 
 export function analysesRoutes(db: Knex, config: Pick<Config, 'dataDir'>, engine: EngineRunner): RouteDefinition[] {
@@ -79,6 +80,17 @@ export function analysesRoutes(db: Knex, config: Pick<Config, 'dataDir'>, engine
       request: { params: idParamsSchema, body: rerunAnalysisRequestSchema },
       responses: { 201: rerunAnalysisResponseSchema },
       handler: ({ params, body, user }) => rerunAnalysis(db, engine, user, params.id, body.spec),
+    }),
+    defineRoute({
+      method: 'get',
+      path: '/analyses/:id/changes',
+      access: 'analyses.read',
+      summary: 'What this version changed against the version it re-ran (null for a first version)',
+      request: { params: idParamsSchema },
+      responses: { 200: analysisChangesSchema.nullable() },
+      handler: async ({ params, user, res }) => {
+        res.json(await changesSincePrevious(db, user, params.id));
+      },
     }),
     defineRoute({
       method: 'get',

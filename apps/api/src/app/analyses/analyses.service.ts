@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
-import type { AnalysisResult, AnalysisSpec, SegmentsInput } from '@tallyfit/engine';
-import type { AnalysisRecord, RerunAnalysisResponse, UpdateAnalysisRequest, User } from '@tallyfit/contracts';
+import { ENGINE_VERSION, type AnalysisResult, type AnalysisSpec, type SegmentsInput } from '@tallyfit/engine';
+import type { AnalysisChanges, AnalysisRecord, RerunAnalysisResponse, UpdateAnalysisRequest, User } from '@tallyfit/contracts';
 import { insertWithAudit, recordAudit } from '../audit/audit.service';
 import type { EngineRunner, EngineRunOptions } from '../engine/engine-runner';
 import { now } from '../http/db-time';
@@ -172,6 +172,10 @@ export async function rerunAnalysis(
   if (!previous.isLatest) throw conflict(`analysis ${id} has a newer version; re-run the latest one`);
   if (previous.study) await requireStudyContributor(db, caller, previous.study.id);
   const nextSpec = spec ?? previous.spec;
+  // Same spec on the same engine would only store a duplicate version with the same figures.
+  if (previous.engineVersion === ENGINE_VERSION && JSON.stringify(nextSpec) === JSON.stringify(previous.spec)) {
+    throw conflict(`analysis ${id} was already run with the current engine (${ENGINE_VERSION}) and this spec; change the spec to run it again`);
+  }
   const owner = { owner: String(caller.id) };
   const result = await engine.analyze(nextSpec, owner);
   // A split analysis is re-run with the same segments' counts.
@@ -214,6 +218,17 @@ export async function rerunAnalysis(
   });
   const analysis = await getAnalysisById(db, newId);
   return { analysis, changes: compareRuns(previous, { engineVersion: analysis.engineVersion, spec: nextSpec, result }) };
+}
+
+/**
+ * What a version changed against the one it re-ran, recomputed from the two stored versions so it
+ * reads the same after a reload; null for a first version.
+ */
+export async function changesSincePrevious(db: Knex, caller: User, id: number): Promise<AnalysisChanges | null> {
+  const analysis = await getReadableAnalysis(db, caller, id);
+  if (analysis.previousId === null) return null;
+  const previous = await getAnalysisById(db, analysis.previousId);
+  return compareRuns(previous, analysis);
 }
 
 /**

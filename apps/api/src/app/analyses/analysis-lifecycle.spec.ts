@@ -69,18 +69,27 @@ describe('analysis lifecycle: studies, edits, re-runs, deletion', () => {
 
   it('re-runs as a new version and reports what changed', async () => {
     const first = (await create({ title: 'Re-run me', spec: seedlings, studyId })).body;
+    // The same spec on the same engine would only duplicate the version: refused.
     const same = await ctx.as('analyst').post(`/analyses/${first.id}/rerun`, {});
-    expect(same.status).toBe(201);
-    expect(same.body.analysis).toMatchObject({ version: 2, seriesId: first.id, previousId: first.id, isLatest: true, status: 'draft' });
-    expect(same.body.changes).toMatchObject({
+    expect(same.status).toBe(409);
+    expect(same.body.error.message).toContain('already run with the current engine');
+
+    const withExact = await ctx.as('analyst').post(`/analyses/${first.id}/rerun`, { spec: { ...seedlings, tests: ['pearson', 'g', 'exact'] } });
+    expect(withExact.status).toBe(201);
+    expect(withExact.body.analysis).toMatchObject({ version: 2, seriesId: first.id, previousId: first.id, isLatest: true, status: 'draft' });
+    expect(withExact.body.changes).toMatchObject({
       previousId: first.id,
       engineVersion: { before: ENGINE_VERSION, after: ENGINE_VERSION, changed: false },
-      specChanged: false,
+      specChanged: true,
       decision: { before: true, after: true, changed: false },
     });
-    expect(same.body.changes.tests.find((t: { test: string }) => t.test === 'pearson')).toMatchObject({ statisticDifference: 0, pDifference: 0 });
+    expect(withExact.body.changes.tests.find((t: { test: string }) => t.test === 'pearson')).toMatchObject({ statisticDifference: 0, pDifference: 0 });
+    // In words: test names, never spec keys or internal phrases.
+    const words = withExact.body.changes.summary.join(' ');
+    expect(words).toMatch(/Exact multinomial test was run for the first time \(p [=<] \.?\d*/);
+    expect(words).not.toMatch(/pearson:|exact:|The spec is unchanged/);
 
-    const changed = await ctx.as('analyst').post(`/analyses/${same.body.analysis.id}/rerun`, { spec: nearlyEven });
+    const changed = await ctx.as('analyst').post(`/analyses/${withExact.body.analysis.id}/rerun`, { spec: nearlyEven });
     expect(changed.status).toBe(201);
     expect(changed.body.analysis.version).toBe(3);
     expect(changed.body.changes.specChanged).toBe(true);
@@ -89,6 +98,13 @@ describe('analysis lifecycle: studies, edits, re-runs, deletion', () => {
     expect(pearson.before.statistic).toBeCloseTo(5.6071, 4);
     expect(pearson.statisticDifference).toBeCloseTo(pearson.after.statistic - pearson.before.statistic, 12);
     expect(changed.body.changes.summary).toContain('The decision changed: the difference is no longer significant at the chosen level.');
+    expect(changed.body.changes.summary).toContain('The observed counts changed.');
+
+    // Kept after a reload: recomputed from the stored versions.
+    const reloaded = await ctx.as('analyst').get(`/analyses/${changed.body.analysis.id}/changes`);
+    expect(reloaded.status).toBe(200);
+    expect(reloaded.body).toEqual(changed.body.changes);
+    expect((await ctx.as('analyst').get(`/analyses/${first.id}/changes`)).body).toBeNull();
 
     const stale = await ctx.as('analyst').post(`/analyses/${first.id}/rerun`, {});
     expect(stale.status).toBe(409);
@@ -123,7 +139,7 @@ describe('analysis lifecycle: studies, edits, re-runs, deletion', () => {
     try {
       expect((await create({ title: 'Half written', spec: seedlings, studyId })).status).toBe(500);
       const existing = (await ctx.db('analyses').where({ is_latest: true }).whereNull('deleted_at').first('id')).id;
-      expect((await ctx.as('analyst').post(`/analyses/${existing}/rerun`, {})).status).toBe(500);
+      expect((await ctx.as('analyst').post(`/analyses/${existing}/rerun`, { spec: { ...nearlyEven, alpha: 0.01 } })).status).toBe(500);
     } finally {
       await allowAuditWrites();
     }

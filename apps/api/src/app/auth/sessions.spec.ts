@@ -33,6 +33,17 @@ describe('sessions: refresh, sign-out, password change, rate limit', () => {
     expect((await refresh(second.body.refreshToken)).status).toBe(401);
   });
 
+  it('records a real sign-in in words, and no sign-in for a session restored by refresh', async () => {
+    const signIns = () => ctx.db('audit_events').where({ action: 'sign-in', actor_id: ctx.userIds.viewer });
+    const before = (await signIns()).length;
+    const session = (await login('viewer@test.local')).body;
+    const after = await signIns();
+    expect(after.length).toBe(before + 1);
+    expect(after[after.length - 1].summary).toBe('Test viewer signed in');
+    expect((await refresh(session.refreshToken)).status).toBe(200);
+    expect((await signIns()).length).toBe(before + 1);
+  });
+
   it('signs out: the refresh token is revoked, and signing out twice is harmless', async () => {
     const session = (await login('analyst@test.local')).body;
     const out = await request(ctx.app).post('/api/v1/auth/logout').send({ refreshToken: session.refreshToken });

@@ -30,6 +30,6 @@ export const DEMO_ANALYSES: ReadonlyArray<{ title: string; spec: AnalysisSpec }>
 
 /** The invented study the demo analyses belong to. */
 export const DEMO_STUDY = {
-  name: 'Northwind storefront checks',
-  description: 'Invented demo study: traffic splits, panel make-up and support load for a made-up online shop.',
+  name: 'Bramblewick Goods storefront checks',
+  description: 'Invented demo study: traffic splits, panel make-up and support load for Bramblewick Goods, a made-up online shop.',
 };

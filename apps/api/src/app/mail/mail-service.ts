@@ -6,6 +6,8 @@ export interface OutgoingMail {
   to: string[];
   subject: string;
   text: string;
+  /** an HTML alternative to `text`, for mail programs that show it */
+  html?: string;
   attachments?: Array<{ filename: string; content: string; contentType: string }>;
   replyTo?: string;
 }

@@ -10,5 +10,7 @@ export interface ReceivedMail {
   to: string[];
   subject: string;
   text: string;
+  /** the HTML alternative, when the message had one */
+  html?: string;
   attachments: Array<{ fileName: string; contentType: string; sizeBytes: number; content: string }>;
 }

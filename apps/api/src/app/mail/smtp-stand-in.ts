@@ -54,6 +54,7 @@ export class SmtpStandIn {
               to: addresses(parsed.to),
               subject: parsed.subject ?? '',
               text: parsed.text ?? '',
+              ...(typeof parsed.html === 'string' ? { html: parsed.html } : {}),
               attachments: parsed.attachments.map((attachment) => ({
                 fileName: attachment.filename ?? '',
                 contentType: attachment.contentType,

@@ -72,6 +72,10 @@ describe('OpenAPI document and docs page', () => {
     expect(page.status).toBe(200);
     expect(page.text).toContain('<div id="swagger-ui"></div>');
     expect(page.text).not.toMatch(/src="https?:/);
+    // Our own header and colours: the explorer's top bar (with its logo) hidden, the title ours.
+    expect(page.text).toContain('<title>Tallyfit API</title>');
+    expect(page.text).toContain('.swagger-ui .topbar { display: none; }');
+    expect(page.text).toContain('Tallyfit · API for goodness-of-fit checks');
     const csp = String(page.headers['content-security-policy']);
     expect(csp).toContain("script-src 'self'");
 

@@ -16,6 +16,30 @@ const DOCS_ASSETS = new Set([
   'favicon-16x16.png',
 ]);
 
+/**
+ * Our own look for the docs page: the explorer's top bar and logo hidden, a Tallyfit header in its
+ * place, and the console's teal (primary 40 and 30 of its palette) for headings, links and buttons.
+ */
+const DOCS_CSS = `
+.swagger-ui .topbar { display: none; }
+body { margin: 0; background: #f6fafa; }
+.swagger-ui { font-family: Roboto, Arial, sans-serif; }
+.swagger-ui .information-container { background: #00696c; padding: 4px 0 12px; }
+.swagger-ui .information-container::before {
+  content: 'Tallyfit · API for goodness-of-fit checks'; display: block; max-width: 1460px; margin: 0 auto;
+  padding: 16px 20px 0; color: #b6fdff; font: 500 14px Roboto, Arial, sans-serif; letter-spacing: .04em;
+}
+.swagger-ui .info { margin: 12px auto 8px; }
+.swagger-ui .info .title, .swagger-ui .info p, .swagger-ui .info li, .swagger-ui .info a { color: #ffffff; }
+.swagger-ui .info .title small { background: #004f51; }
+.swagger-ui .info .title small.version-stamp { background: #38656d; }
+.swagger-ui a { color: #00696c; }
+.swagger-ui .opblock-tag { color: #004f51; border-bottom-color: #bcebf3; }
+.swagger-ui .btn.authorize { color: #00696c; border-color: #00696c; }
+.swagger-ui .btn.authorize svg { fill: #00696c; }
+.swagger-ui .btn.execute { background: #00696c; border-color: #00696c; }
+`;
+
 const docsAssetParamsSchema = z.object({ asset: z.string() });
 
 /**
@@ -26,6 +50,8 @@ export function openApiRoutes(routes: () => readonly RouteDefinition[]): RouteDe
   let document: object | undefined;
   const page = swaggerUi.setup(undefined, {
     customSiteTitle: 'Tallyfit API',
+    customCss: DOCS_CSS,
+    customfavIcon: '/favicon.svg',
     swaggerOptions: { url: `${API_PREFIX}/openapi.json` },
   }) as (req: Request, res: Response) => void;
   const [initScript, assets] = swaggerUi.serve as unknown as [

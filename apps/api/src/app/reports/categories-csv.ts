@@ -1,4 +1,4 @@
-import type { AnalysisResult, SegmentsResult } from '@tallyfit/engine';
+import { categoryCells, categoryHeadings, type AnalysisResult, type SegmentsResult } from '@tallyfit/engine';
 
 /**
  * A label that a spreadsheet would run as a formula (it starts with = + - @, or a tab or carriage
@@ -14,35 +14,38 @@ function field(text: string): string {
   return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
 }
 
-const number = (value: number) => (Number.isFinite(value) ? String(value) : '');
+/** The shared cells as a spreadsheet reads numbers: the ASCII minus, no thousands separators. */
+const number = (text: string) => text.replace(/^−/, '-').replace(/,/g, '');
 
-/** The per-category table as CSV with CRLF line ends and a header row. */
+/**
+ * The per-category table as CSV with CRLF line ends and a header row: the same headings and digits
+ * as the page and the other reports (the engine's shared cells).
+ */
 export function categoriesCsv(result: AnalysisResult): string {
+  const headings = categoryHeadings(result);
   const header = [
-    'category',
-    'observed',
-    'expected',
-    'observed share',
-    'expected share',
-    'residual',
-    'adjusted residual',
-    'p',
-    'adjusted p',
-    'interval low',
-    'interval high',
-  ];
-  const rows = result.categories.map((row) => [
-    field(guardFormula(row.label)),
-    number(row.observed),
-    number(row.expected),
-    number(row.share),
-    number(row.expectedShare),
-    number(row.residual),
-    number(row.adjustedResidual),
-    number(row.p),
-    number(row.pAdjusted),
-    number(row.interval.low),
-    number(row.interval.high),
+    headings.label,
+    headings.observed,
+    headings.expected,
+    headings.share,
+    headings.expectedShare,
+    headings.gap,
+    headings.residual,
+    headings.p,
+    headings.intervalLow,
+    headings.intervalHigh,
+  ].map(field);
+  const rows = categoryCells(result).map((cells) => [
+    field(guardFormula(cells.label)),
+    number(cells.observed),
+    number(cells.expected),
+    number(cells.share),
+    number(cells.expectedShare),
+    number(cells.gap),
+    number(cells.residual),
+    field(cells.p),
+    number(cells.intervalLow),
+    number(cells.intervalHigh),
   ]);
   return [header, ...rows].map((cells) => cells.join(',')).join('\r\n') + '\r\n';
 }
@@ -50,11 +53,12 @@ export function categoriesCsv(result: AnalysisResult): string {
 /** The ranked segments as CSV, one row per segment, empty cells where a segment was not tested. */
 export function segmentsCsv(segments: SegmentsResult): string {
   const header = ['rank', 'segment', 'n', 'test', 'statistic', 'df', 'p', 'adjusted p', 'adjustment', 'w', 'driven by', 'flag'];
-  const optional = (value: number | undefined) => (value === undefined ? '' : number(value));
+  // Raw numbers in full precision: a spreadsheet formats them itself.
+  const optional = (value: number | undefined) => (value === undefined ? '' : String(value));
   const rows = segments.rows.map((row) => [
     optional(row.rank),
     field(guardFormula(row.segment)),
-    number(row.n),
+    String(row.n),
     row.test ?? '',
     optional(row.statistic),
     optional(row.df),

@@ -1,3 +1,4 @@
+import { categoriesMarkdownTable, effectSizeText, testCells } from '@tallyfit/engine';
 import { reportFacts, statisticsLines, type ReportSource } from './report-source';
 
 /** Markdown has no escape for every character, but these would turn a title or label into markup. */
@@ -20,9 +21,14 @@ export function markdownReport(source: ReportSource, link?: string): string {
   lines.push('', '## Verdict', '', result.conclusion.verdict, '');
   lines.push('## Statistics', '');
   for (const [test, line] of statisticsLines(result)) lines.push(`- ${test}: ${line}`);
+  lines.push(`- Effect size: Cohen's ${effectSizeText(result)}`, '');
+  lines.push('| Test | Statistic | df | p | How computed |', '| --- | ---: | ---: | ---: | --- |');
+  for (const test of testCells(result)) lines.push(`| ${test.name} | ${test.statistic} | ${test.df} | ${test.p} | ${test.how} |`);
   lines.push('');
   if (source.notes?.trim()) lines.push('## Notes', '', source.notes.trim(), '');
-  lines.push(result.report.markdown.trim(), '');
+  // The table is drawn from today's shared cells (not the stored write-up's copy) so the digits match the page.
+  lines.push('## Method', '', result.report.methods, '', '## Result', '', result.report.results, '', categoriesMarkdownTable(result), '');
+  lines.push('## What this does not show', '', ...result.report.cautions.map((caution) => `- ${caution}`), '');
   if (source.segments) {
     lines.push(`## Segments by ${inline(source.segments.column)}`, '', source.segments.result.report.paragraph, '', source.segments.result.report.table, '');
   }

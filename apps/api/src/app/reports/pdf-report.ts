@@ -1,11 +1,22 @@
 import PDFDocument from 'pdfkit';
-import { formatPValueAt, type SegmentsResult } from '@tallyfit/engine';
-import { formatNumber } from './report-numbers';
+import {
+  categoryCells,
+  categoryHeadings,
+  effectSizeText,
+  formatExpectedCount,
+  formatPValue,
+  formatPValueAt,
+  formatShare,
+  formatStatistic,
+  groupDigits,
+  testCells,
+  type SegmentsResult,
+} from '@tallyfit/engine';
 import { drawObservedExpectedChart } from './pdf-bar-chart';
 import type { PdfFonts } from './pdf-fonts';
 import { drawTable } from './pdf-table';
 import { MUTED, PdfText } from './pdf-text';
-import { reportFacts, statisticsLines, testName, type ReportSource } from './report-source';
+import { reportFacts, statisticsLines, type ReportSource } from './report-source';
 
 export interface PdfOptions {
   /** compress page content (on for delivery; tests turn it off to read the text) */
@@ -51,31 +62,19 @@ function writeReport(text: PdfText, source: ReportSource): void {
   for (const [test, line] of statisticsLines(result)) text.paragraph(`${test}: ${line}`, { size: 10 });
 
   text.heading('Tests');
-  const testRows = Object.entries(result.tests)
-    .filter(([, outcome]) => outcome !== undefined)
-    .map(([key, outcome]) => {
-      const withStatistic = outcome as { statistic?: number; df?: number; p: number; method?: string; se?: number };
-      return [
-        testName(key),
-        withStatistic.statistic === undefined ? '—' : formatNumber(withStatistic.statistic, 3),
-        withStatistic.df === undefined ? '—' : String(withStatistic.df),
-        formatPValueAt(withStatistic.p, result.conclusion.alpha),
-        withStatistic.method ? `${withStatistic.method}${withStatistic.se ? `, SE ${formatNumber(withStatistic.se, 2)}` : ''}` : '',
-      ];
-    });
   drawTable(
     text,
     [
-      { title: 'Test', share: 3 },
-      { title: 'Statistic', share: 1.3, align: 'right' },
-      { title: 'df', share: 0.7, align: 'right' },
-      { title: 'p', share: 1.3, align: 'right' },
-      { title: 'How computed', share: 2 },
+      { title: 'Test', share: 2.4 },
+      { title: 'Statistic', share: 1.1, align: 'right' },
+      { title: 'df', share: 0.6, align: 'right' },
+      { title: 'p', share: 1, align: 'right' },
+      { title: 'How computed', share: 3.4 },
     ],
-    testRows,
+    testCells(result).map((test) => [test.name, test.statistic, test.df, test.p, test.how]),
   );
   text.paragraph(
-    `Effect size: Cohen's w = ${formatNumber(result.effectSize.w, 3)} (${result.effectSize.size}). Smallest expected count: ${formatNumber(result.assumptions.minExpected, 3)}.`,
+    `Effect size: Cohen's ${effectSizeText(result)}. Smallest expected count: ${formatExpectedCount(result.assumptions.minExpected)}.`,
     { size: 9.5 },
   );
 
@@ -86,23 +85,28 @@ function writeReport(text: PdfText, source: ReportSource): void {
   );
 
   text.heading('Categories');
+  const headings = categoryHeadings(result);
   drawTable(
     text,
     [
-      { title: 'Category', share: 3 },
-      { title: 'Observed', share: 1.2, align: 'right' },
-      { title: 'Expected', share: 1.2, align: 'right' },
-      { title: 'Residual', share: 1.1, align: 'right' },
-      { title: 'Adjusted residual', share: 1.5, align: 'right' },
-      { title: 'Adjusted p', share: 1.2, align: 'right' },
+      { title: headings.label, share: 2.2 },
+      { title: headings.observed, share: 1.1, align: 'right' },
+      { title: headings.expected, share: 1.2, align: 'right' },
+      { title: headings.share, share: 1.1, align: 'right' },
+      { title: headings.expectedShare, share: 1.1, align: 'right' },
+      { title: headings.gap, share: 1.3, align: 'right' },
+      { title: headings.p, share: 1, align: 'right' },
+      { title: headings.intervalLow.replace(/, low$/, ''), share: 1.7, align: 'right' },
     ],
-    result.categories.map((row) => [
-      row.label,
-      formatNumber(row.observed, 6),
-      formatNumber(row.expected, 4),
-      formatNumber(row.residual, 3),
-      formatNumber(row.adjustedResidual, 3),
-      formatNumber(row.pAdjusted, 3),
+    categoryCells(result).map((cells) => [
+      cells.label,
+      cells.observed,
+      cells.expected,
+      cells.share,
+      cells.expectedShare,
+      cells.gap,
+      cells.p,
+      `${cells.intervalLow} – ${cells.intervalHigh}`,
     ]),
   );
 
@@ -146,11 +150,12 @@ function writeSegments(text: PdfText, column: string, segments: SegmentsResult):
     segments.rows.map((row) => [
       row.rank === undefined ? '—' : String(row.rank),
       row.segment,
-      formatNumber(row.n, 6),
-      row.statistic === undefined ? '—' : formatNumber(row.statistic, 4),
-      row.p === undefined ? '—' : formatNumber(row.p, 3),
-      row.pAdjusted === undefined ? '—' : formatNumber(row.pAdjusted, 3),
-      row.w === undefined ? '—' : formatNumber(row.w, 2),
+      // The same formatters as the engine's segments table in the Markdown report.
+      groupDigits(row.n),
+      row.statistic === undefined ? '—' : formatStatistic(row.statistic),
+      row.p === undefined ? '—' : formatPValue(row.p),
+      row.pAdjusted === undefined ? '—' : formatPValue(row.pAdjusted),
+      row.w === undefined ? '—' : formatShare(row.w),
       row.flag ? (row.flag.code === 'too-small' ? 'too small for chi-square' : 'not tested') : row.significant ? 'departs' : '',
     ]),
   );

@@ -17,18 +17,20 @@ export function drawTable(text: PdfText, columns: TableColumn[], rows: string[][
   const widths = columns.map((column) => (column.share / total) * text.contentWidth);
   const padding = 4;
 
+  const styleOf = (header: boolean) => ({ size: SIZE, weight: header ? (700 as const) : (400 as const), color: header ? MUTED : undefined });
+  // A cell too long for its column wraps onto more lines (a "How computed" sentence) rather than being cut.
+  const heightOf = (cells: string[], header: boolean) =>
+    Math.max(ROW_HEIGHT, ...cells.map((cell, i) => text.heightOf(cell, widths[i] - 2 * padding, styleOf(header)) + 5));
+
   const drawRow = (cells: string[], header: boolean) => {
     const y = doc.y;
+    const height = heightOf(cells, header);
     let x = text.left;
     cells.forEach((cell, i) => {
-      text.cell(cell, x + padding, y + 3, widths[i] - 2 * padding, columns[i].align ?? 'left', {
-        size: SIZE,
-        weight: header ? 700 : 400,
-        color: header ? MUTED : undefined,
-      });
+      text.wrapped(cell, x + padding, y + 3, widths[i] - 2 * padding, columns[i].align ?? 'left', styleOf(header));
       x += widths[i];
     });
-    doc.y = y + ROW_HEIGHT;
+    doc.y = y + height;
     doc
       .moveTo(text.left, doc.y)
       .lineTo(text.left + text.contentWidth, doc.y)
@@ -40,7 +42,7 @@ export function drawTable(text: PdfText, columns: TableColumn[], rows: string[][
   text.ensureRoom(ROW_HEIGHT * 3);
   drawRow(columns.map((column) => column.title), true);
   for (const row of rows) {
-    if (text.roomLeft < ROW_HEIGHT) {
+    if (text.roomLeft < heightOf(row, false)) {
       doc.addPage();
       drawRow(columns.map((column) => column.title), true);
     }

@@ -77,6 +77,26 @@ export class PdfText {
     this.doc.x = this.left;
   }
 
+  /** Text wrapped inside a box of `width` (a table cell that may take several lines). */
+  wrapped(text: string, x: number, y: number, width: number, align: 'left' | 'right' = 'left', style: TextStyle = {}): void {
+    this.style(style);
+    const runs = textRuns(text, this.fonts, style.weight ?? 400);
+    runs.forEach((run, i) => {
+      const options = { width, align, continued: i < runs.length - 1 };
+      if (i === 0) this.doc.font(run.font).text(run.text, x, y, options);
+      else this.doc.font(run.font).text(run.text, options);
+    });
+    this.doc.x = this.left;
+  }
+
+  /** How tall `wrapped` will draw the text. */
+  heightOf(text: string, width: number, style: TextStyle = {}): number {
+    this.style(style);
+    const runs = textRuns(text, this.fonts, style.weight ?? 400);
+    if (runs[0]) this.doc.font(runs[0].font);
+    return this.doc.heightOfString(text, { width });
+  }
+
   widthOf(text: string, style: TextStyle = {}): number {
     this.style(style);
     return textRuns(text, this.fonts, style.weight ?? 400).reduce((sum, run) => sum + this.doc.font(run.font).widthOfString(run.text), 0);

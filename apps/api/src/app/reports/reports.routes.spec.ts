@@ -37,8 +37,9 @@ describe('report downloads', () => {
     expect(response.status).toBe(200);
     expect(response.headers['content-type']).toBe('text/csv; charset=utf-8');
     const lines = response.text.split('\r\n');
-    expect(lines[1].startsWith('under 30,188,200,0.47,0.5,')).toBe(true);
-    expect(lines[3].startsWith("'+60 and over,80,80,0.2,0.2,0,")).toBe(true);
+    // 188 of 400 = 0.470 against 0.500, expected 200 (hand arithmetic), with the page's digits
+    expect(lines[1].startsWith('under 30,188,200.00,0.470,0.500,')).toBe(true);
+    expect(lines[3].startsWith("'+60 and over,80,80.00,0.200,0.200,0.00,")).toBe(true);
   });
 
   it('serves a PDF', async () => {

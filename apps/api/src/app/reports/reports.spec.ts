@@ -55,9 +55,12 @@ describe('reports of an analysis', () => {
 
   it('writes the categories as RFC 4180 CSV and defuses a formula in a label', () => {
     const lines = categoriesCsv(result).split('\r\n');
-    expect(lines[0]).toBe('category,observed,expected,observed share,expected share,residual,adjusted residual,p,adjusted p,interval low,interval high');
-    expect(lines[1].startsWith("'=SUM(A1),52,50,0.104,0.1,")).toBe(true);
-    expect(lines[2].startsWith('"Ärm ""B"", north",48,50,')).toBe(true);
+    expect(lines[0]).toBe(
+      'Category,Counted,Expected,Share counted,Share expected,Gap in standard errors,Gap per √expected,p (Holm),"95% range, low","95% range, high"',
+    );
+    // 52 of 500 = 0.104 against 0.1 (hand arithmetic); the page's digits, numbers a spreadsheet reads
+    expect(lines[1].startsWith("'=SUM(A1),52,50.00,0.104,0.100,")).toBe(true);
+    expect(lines[2].startsWith('"Ärm ""B"", north",48,50.00,')).toBe(true);
     expect(lines).toHaveLength(12);
     expect(lines[11]).toBe('');
   });
@@ -79,7 +82,9 @@ describe('reports of an analysis', () => {
       'Observed and expected counts',
       'ObservedExpected',
       'Ärm "B", north',
-      'Adjusted residual',
+      'Gap in standard errors',
+      'How computed',
+      'Chi-square distribution with 9 degrees of freedom.',
       'What this does not show',
       ...result.report.cautions,
     ]) {

@@ -41,6 +41,13 @@ describe('sharing by e-mail through the local stand-in', () => {
     expect(mail.attachments).toEqual([
       { fileName: `analysis-${analysisId}-split-check-week-49.md`, contentType: 'text/markdown', sizeBytes: expect.any(Number) },
     ]);
+    // The HTML alternative renders the report: headings and tables, not raw Markdown.
+    expect(mail.html).toContain('<h1>Split check, week 49</h1>');
+    expect(mail.html).toContain('<table>');
+    expect(mail.html).toContain('χ²(1, N = 1,000) = 1.94');
+    expect(mail.html).not.toContain('**Study:**');
+    expect(mail.html).not.toMatch(/^\|/m);
+    expect(mail.html).toContain(`<a href="http://localhost:3000/analyses/${analysisId}">Open it in Tallyfit</a>`);
     const attached = ctx.mail.outbox()![0].attachments[0].content;
     expect(attached).toMatch(/^# Split check, week 49\n/);
 

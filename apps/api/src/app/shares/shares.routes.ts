@@ -47,6 +47,7 @@ export function sharesRoutes(db: Knex, config: Config, mail: MailService): Route
             to: message.envelopeTo,
             subject: message.subject,
             text: message.text,
+            html: message.html ?? null,
             attachments: message.attachments.map(({ fileName, contentType, sizeBytes }) => ({ fileName, contentType, sizeBytes })),
           })),
         };

@@ -8,6 +8,7 @@ import { HttpError } from '../http/http-error';
 import type { MailService } from '../mail/mail-service';
 import { markdownReport } from '../reports/markdown-report';
 import { analysisLink, downloadName, reportSourceFor } from '../reports/reports.service';
+import { shareMailBody } from './share-mail';
 
 interface ShareRow {
   id: number;
@@ -31,22 +32,6 @@ const toShare = (row: ShareRow): Share => ({
   failureReason: row.failure_reason,
   createdAt: isoDate(row.created_at),
 });
-
-/** The plain-text body: who shares what, their note, the link, then the whole Markdown report. */
-function mailBody(sender: User, title: string, link: string, report: string, message?: string): string {
-  return [
-    `${sender.name} shared the Tallyfit analysis "${title}" with you.`,
-    ...(message ? ['', message] : []),
-    '',
-    `Open it in Tallyfit: ${link}`,
-    '',
-    'The report follows and is attached as Markdown.',
-    '',
-    '---',
-    '',
-    report,
-  ].join('\n');
-}
 
 /** E-mails one person may send from Tallyfit per hour: enough for a team, too few for a spam run (common practice, no source). */
 export const SHARES_PER_HOUR = 20;
@@ -93,7 +78,7 @@ export async function shareAnalysis(
     await mail.send({
       to: recipients,
       subject: `Tallyfit analysis: ${source.title}`,
-      text: mailBody(caller, source.title, link, report, request.message),
+      ...shareMailBody(caller, source.title, link, report, request.message),
       replyTo: caller.email,
       attachments: [{ filename: downloadName(source, 'md'), content: report, contentType: 'text/markdown; charset=utf-8' }],
     });

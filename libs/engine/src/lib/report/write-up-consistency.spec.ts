@@ -58,8 +58,8 @@ describe('write-ups that never contradict themselves', () => {
 
   it('names which residual each column holds', () => {
     const result = analyze({ observed: { labels: ['a', 'b', 'c'], counts: [30, 20, 10] }, hypothesis: { kind: 'equal' } });
-    expect(result.report.table).toContain('Pearson residual (O − E)/√E');
-    expect(result.report.table).toContain('Adjusted residual (O − E)/√(E(1 − p₀))');
+    expect(result.report.table).toContain('Gap per √expected, (O − E)/√E');
+    expect(result.report.table).toContain('Gap in standard errors, (O − E)/√(E(1 − p₀))');
   });
 
   it('lists as drivers exactly the categories whose adjusted p is below alpha', () => {

@@ -4,7 +4,8 @@
  */
 import type { AnalysisResult, CategoryRow, MainTest, Report } from '../result/analysis-result';
 import { effectSizeWord } from '../effect-size/cohens-w';
-import { formatCount, formatEffectSize, formatPValueAt, formatPercent, formatShare, formatStatistic, groupDigits } from './format-numbers';
+import { formatEffectSize, formatPercent, groupDigits } from './format-numbers';
+import { categoriesMarkdownTable, formatExpectedCount } from './shown-numbers';
 import { standsOut } from './stands-out';
 import { TEST_LABELS } from '../spec/vocabulary';
 
@@ -30,7 +31,7 @@ function listInProse(items: readonly string[]): string {
 
 function categoryDeparture(row: CategoryRow): string {
   const direction = row.observed > row.expected ? 'more' : 'fewer';
-  return `"${row.label}" (${direction} than expected: ${groupDigits(row.observed)} observed vs ${formatCount(row.expected)} expected)`;
+  return `"${row.label}" (${direction} than expected: ${groupDigits(row.observed)} observed vs ${formatExpectedCount(row.expected)} expected)`;
 }
 
 function methodsSentence(input: WriteUpInput): string {
@@ -99,38 +100,6 @@ function resultsSentence(input: WriteUpInput): string {
   return sentences.join(' ');
 }
 
-function escapeCell(text: string): string {
-  return text.replace(/\|/g, '\\|').replace(/\r?\n/g, ' ');
-}
-
-function markdownTable(result: WriteUpInput['result']): string {
-  const level = formatPercent(result.intervals.level);
-  const header = [
-    'Category',
-    'Observed',
-    'Expected',
-    'Observed share',
-    'Expected share',
-    'Pearson residual (O − E)/√E',
-    'Adjusted residual (O − E)/√(E(1 − p₀))',
-    result.posthoc.adjust === 'none' ? 'p' : 'p (adjusted)',
-    `${level} interval`,
-  ];
-  const rows = result.categories.map((row) => [
-    escapeCell(row.label),
-    groupDigits(row.observed),
-    formatCount(row.expected),
-    formatShare(row.share),
-    formatShare(row.expectedShare),
-    formatStatistic(row.residual),
-    formatStatistic(row.adjustedResidual),
-    formatPValueAt(result.posthoc.adjust === 'none' ? row.p : row.pAdjusted, result.conclusion.alpha),
-    `[${formatShare(row.interval.low)}, ${formatShare(row.interval.high)}]`,
-  ]);
-  const align = header.map((_, index) => (index === 0 ? '---' : '---:'));
-  return [header, align, ...rows].map((cells) => `| ${cells.join(' | ')} |`).join('\n');
-}
-
 function cautions(input: WriteUpInput): string[] {
   const list = [
     'A small p-value does not mean a large or important difference: judge the size by w and by the per-category departures.',
@@ -154,7 +123,7 @@ function cautions(input: WriteUpInput): string[] {
 export function writeUp(input: WriteUpInput): Report {
   const methods = methodsSentence(input);
   const results = resultsSentence(input);
-  const table = markdownTable(input.result);
+  const table = categoriesMarkdownTable(input.result);
   const cautionList = cautions(input);
   const markdown = [
     '## Method',

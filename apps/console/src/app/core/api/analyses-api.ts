@@ -1,6 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import type {
+  AnalysisChanges,
   AnalysisRecord,
   AnalysisSummary,
   CreateAnalysisRequest,
@@ -31,6 +32,11 @@ export class AnalysesApi {
     return this.http
       .post<RerunAnalysisResponse>(`/api/v1/analyses/${id}/rerun`, spec ? { spec } : {}, { context: pageHandlesErrors() })
       .pipe(tap(({ analysis }) => this.justStored.set(analysis.id, analysis)));
+  }
+
+  /** What a version changed against the one it re-ran (null for a first version); the page shows it after a reload too. */
+  changes(id: number): Observable<AnalysisChanges | null> {
+    return this.http.get<AnalysisChanges | null>(`/api/v1/analyses/${id}/changes`, { context: pageHandlesErrors() });
   }
 
   /** The newest page (up to 100) of the signed-in person's own analyses. */

@@ -2,7 +2,7 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { DeferBlockBehavior, TestBed, type ComponentFixture } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
-import type { AnalysisRecord, Role } from '@tallyfit/contracts';
+import type { AnalysisChanges, AnalysisRecord, Role } from '@tallyfit/contracts';
 import { analyze, type AnalysisSpec } from '@tallyfit/engine';
 import { storeSession } from '../../testing/fixtures';
 import { stubIntersectionObserver } from '../../testing/intersection-observer-stub';
@@ -44,7 +44,7 @@ describe('AnalysisPage', () => {
   let fixture: ComponentFixture<AnalysisPage>;
   let root: HTMLElement;
 
-  async function render(role: Role, analysis = record()): Promise<void> {
+  async function render(role: Role, analysis = record(), changes: AnalysisChanges | null = null): Promise<void> {
     sessionStorage.clear();
     storeSession(role, 2);
     TestBed.configureTestingModule({
@@ -59,6 +59,10 @@ describe('AnalysisPage', () => {
     TestBed.tick();
     http.expectOne(`/api/v1/analyses/${analysis.id}`).flush(analysis);
     await settle();
+    if (analysis.previousId !== null) {
+      http.expectOne(`/api/v1/analyses/${analysis.id}/changes`).flush(changes);
+      await settle();
+    }
     root = fixture.nativeElement as HTMLElement;
   }
 
@@ -70,8 +74,11 @@ describe('AnalysisPage', () => {
 
   afterEach(() => http.verify());
 
-  const button = (label: string) =>
-    Array.from(root.querySelectorAll<HTMLButtonElement>('button')).find((b) => b.textContent?.replace(/\s+/g, ' ').trim().endsWith(label));
+  const button = (label: string, prefix = false) =>
+    Array.from(root.querySelectorAll<HTMLButtonElement>('button')).find((b) => {
+      const words = b.textContent?.replace(/\s+/g, ' ').trim() ?? '';
+      return prefix ? words.includes(label) : words.endsWith(label);
+    });
   const text = (selector: string) => root.querySelector(selector)?.textContent?.replace(/\s+/g, ' ').trim();
 
   it('puts the decision in plain words and the tests side by side', async () => {
@@ -102,24 +109,47 @@ describe('AnalysisPage', () => {
     expect(spec.observed).toEqual({ labels: ['scratch', 'dent', 'stain', 'crack + chip'], counts: [52, 30, 14, 4] });
     expect(spec.mergedCategories).toEqual([{ label: 'crack + chip', members: ['crack', 'chip'] }]);
     const next = record({ id: 22, version: 2, previousId: 21 }, spec);
-    rerun.flush({
-      analysis: next,
-      changes: {
-        previousId: 21,
-        engineVersion: { before: next.engineVersion, after: next.engineVersion, changed: false },
-        specChanged: true,
-        tests: [],
-        decision: { before: false, after: false, changed: false },
-        summary: ['The spec changed.'],
-      },
-    });
+    const changes: AnalysisChanges = {
+      previousId: 21,
+      engineVersion: { before: next.engineVersion, after: next.engineVersion, changed: false },
+      specChanged: true,
+      tests: [],
+      decision: { before: false, after: false, changed: false },
+      summary: ['The categories changed from 5 (scratch, dent, stain, crack, chip) to 4 (scratch, dent, stain, crack + chip).'],
+    };
+    rerun.flush({ analysis: next, changes });
     expect(navigate).toHaveBeenCalledWith(['/analyses', 22]);
     fixture.componentRef.setInput('id', 22);
     await settle();
     // The re-run's own answer opens the new version: no second request (AnalysesApi keeps what was just stored).
     http.expectNone('/api/v1/analyses/22');
+    http.expectOne('/api/v1/analyses/22/changes').flush(changes);
+    await settle();
     expect(text('.changes')).toContain('What changed since version 1');
     expect(text('.changes')).toContain('“crack”, “chip” → “crack + chip”');
+    expect(text('.changes')).toContain('The categories changed from 5');
+  });
+
+  it('keeps what changed after a reload, read from the stored versions', async () => {
+    const changes: AnalysisChanges = {
+      previousId: 20,
+      engineVersion: { before: '0.1.4', after: '0.2.0', changed: true },
+      specChanged: false,
+      tests: [],
+      decision: { before: false, after: false, changed: false },
+      summary: ['Computed again with engine 0.2.0 (it was 0.1.4).'],
+    };
+    await render('analyst', record({ version: 2, previousId: 20 }), changes);
+    expect(text('.changes')).toContain('What changed since version 1');
+    expect(text('.changes')).toContain('Computed again with engine 0.2.0 (it was 0.1.4).');
+  });
+
+  it('offers a run on the current engine only when the stored result came from another engine version', async () => {
+    await render('analyst');
+    expect(button('Run again on the current engine', true)).toBeUndefined();
+    TestBed.resetTestingModule();
+    await render('analyst', record({ engineVersion: '0.1.4' }));
+    expect(button('Run again on the current engine', true)).toBeDefined();
   });
 
   it('adds the exact test when that is the remedy', async () => {

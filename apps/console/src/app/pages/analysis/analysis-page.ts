@@ -8,8 +8,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import type { AnalysisChanges, AnalysisRecord } from '@tallyfit/contracts';
-import type { AnalysisSpec } from '@tallyfit/engine';
-import { combineLatest, switchMap } from 'rxjs';
+import { ENGINE_VERSION, type AnalysisSpec } from '@tallyfit/engine';
+import { catchError, combineLatest, of, switchMap } from 'rxjs';
 import { AnalysesApi } from '../../core/api/analyses-api';
 import { apiErrorMessage } from '../../core/api/api-error-message';
 import { ReportsApi, type ReportFormat } from '../../core/api/reports-api';
@@ -18,6 +18,7 @@ import { can } from '@tallyfit/contracts';
 import { saveFile } from '../../core/files/save-file';
 import { LOADING, toLoadState } from '../../core/load/load-state';
 import { NotificationsCenter } from '../../core/notifications/notifications-center';
+import { CountPipe } from '../../shared/words/count-words';
 import { AnalysisStatusChip } from '../../shared/analysis-status/analysis-status-chip';
 import { AssumptionCheckPanel, type Remedy } from './assumption-check';
 import { CategoriesTable } from './categories-table';
@@ -31,11 +32,10 @@ import { ReviewPanel } from './review-panel';
 import { WriteUp } from './write-up';
 import { CommentsThread } from '../../shared/comments-thread/comments-thread';
 
-/** What a re-run changed, kept for the version it produced. */
+/** Why the person re-ran, kept for the version it produced (the changes themselves come from the API). */
 interface RerunNote {
   id: number;
   what: string;
-  changes: AnalysisChanges;
 }
 
 /**
@@ -45,6 +45,7 @@ interface RerunNote {
 @Component({
   selector: 'tf-analysis-page',
   imports: [
+    CountPipe,
     DatePipe,
     DecimalPipe,
     RouterLink,
@@ -102,10 +103,25 @@ export class AnalysisPage implements OnInit {
   protected readonly busy = signal<string | null>(null);
   protected readonly problem = signal<string | null>(null);
   private readonly rerunNote = signal<RerunNote | null>(null);
-  protected readonly changes = computed(() => {
+  /** What this version changed against the one it re-ran, read from the stored versions so a reload keeps it. */
+  private readonly storedChanges = toSignal(
+    toObservable(this.analysis).pipe(
+      switchMap((analysis) => (analysis?.previousId ? this.api.changes(analysis.id).pipe(catchError(() => of(null))) : of(null))),
+    ),
+    { initialValue: null },
+  );
+  protected readonly changes = computed((): { what: string; changes: AnalysisChanges } | null => {
+    const changes = this.storedChanges();
+    if (!changes) return null;
     const note = this.rerunNote();
-    return note && note.id === this.id() ? note : null;
+    return { what: note && note.id === this.id() ? note.what : '', changes };
   });
+  /** Re-running on today's engine only makes sense when the stored result came from another engine version. */
+  protected readonly engineChanged = computed(() => {
+    const analysis = this.analysis();
+    return !!analysis && analysis.engineVersion !== ENGINE_VERSION;
+  });
+  protected readonly currentEngine = ENGINE_VERSION;
 
   protected remedy(analysis: AnalysisRecord, remedy: Remedy): void {
     if (remedy.kind === 'exact') {
@@ -128,9 +144,9 @@ export class AnalysisPage implements OnInit {
     this.busy.set('Running again…');
     this.problem.set(null);
     this.api.rerun(analysis.id, spec).subscribe({
-      next: ({ analysis: next, changes }) => {
+      next: ({ analysis: next }) => {
         this.busy.set(null);
-        this.rerunNote.set({ id: next.id, what, changes });
+        this.rerunNote.set({ id: next.id, what });
         void this.announcer.announce(`${what} Version ${next.version} is shown.`);
         void this.router.navigate(['/analyses', next.id]);
       },

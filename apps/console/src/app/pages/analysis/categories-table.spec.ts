@@ -1,5 +1,5 @@
 import { TestBed } from '@angular/core/testing';
-import { analyze } from '@tallyfit/engine';
+import { analyze, categoryCells } from '@tallyfit/engine';
 import { CategoriesTable } from './categories-table';
 
 describe('CategoriesTable', () => {
@@ -27,10 +27,19 @@ describe('CategoriesTable', () => {
     expect(result.report.results).not.toContain('"d" (');
   });
 
-  it('says which residual each column holds', () => {
-    const headers = [...render().querySelectorAll('thead th')].map((cell) => cell.textContent?.trim());
-    expect(headers).toContain('Pearson residual');
-    expect(headers).toContain('Adjusted residual');
-    expect(headers).toContain('p (Holm-adjusted)');
+  it('heads the columns in our own words', () => {
+    const headers = [...render().querySelectorAll('thead th')].map((cell) => cell.textContent?.replace(/\s+/g, ' ').trim());
+    expect(headers).toContain('Gap in standard errors');
+    expect(headers).toContain('Gap per √expected');
+    expect(headers).toContain('p (Holm)');
+    expect(headers.join(' ')).not.toMatch(/residual/i);
+  });
+
+  it('prints the cells the reports print', () => {
+    const firstRow = render().querySelector('tbody tr')?.textContent?.replace(/\s+/g, ' ') ?? '';
+    const cells = categoryCells(result)[0];
+    for (const text of [cells.observed, cells.expected, cells.share, cells.expectedShare, cells.gap, cells.p, cells.intervalLow, cells.intervalHigh]) {
+      expect(firstRow).toContain(text);
+    }
   });
 });

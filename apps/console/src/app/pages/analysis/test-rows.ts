@@ -2,7 +2,7 @@
  * The tests of a result as rows to show side by side: name, statistic, df, p (APA style), and how
  * the p-value was found (for the exact test: counted exactly or simulated, with its standard error).
  */
-import { TEST_LABELS, type AnalysisResult, type MainTest } from '@tallyfit/engine';
+import { exactHowComputed, TEST_LABELS, type AnalysisResult, type MainTest } from '@tallyfit/engine';
 import { formatP, formatStatistic } from '../../core/format/p-value';
 
 export interface TestRow {
@@ -23,20 +23,6 @@ export function smallPNote(p: number, logP: number): string {
   if (p > 0 || !Number.isFinite(logP)) return '';
   const exponent = logP / Math.LN10;
   return `p ≈ 10^${Math.floor(exponent)}`;
-}
-
-function exactHow(exact: NonNullable<AnalysisResult['tests']['exact']>): string {
-  const ordering = { probability: 'outcomes no more likely than the data', llr: 'G at least as large', pearson: 'X² at least as large' }[exact.ordering];
-  switch (exact.method) {
-    case 'binomial':
-      return 'Exact binomial test (two categories).';
-    case 'enumerate':
-      return `Every possible outcome counted; extreme means ${ordering}.${
-        exact.massBound ? ` At most ${exact.massBound.toExponential(1)} of probability left out.` : ''
-      }`;
-    case 'monte-carlo':
-      return `Simulated from ${(exact.samples ?? 0).toLocaleString('en-US')} samples (seed ${exact.seed ?? 0}); Monte Carlo standard error ${(exact.se ?? 0).toPrecision(2)}; extreme means ${ordering}.`;
-  }
 }
 
 export function testRows(result: AnalysisResult, williams: boolean): TestRow[] {
@@ -73,7 +59,7 @@ export function testRows(result: AnalysisResult, williams: boolean): TestRow[] {
       statistic: '—',
       df: '—',
       p: formatP(tests.exact.p, conclusion.alpha),
-      how: [exactHow(tests.exact), smallPNote(tests.exact.p, tests.exact.logP)].filter(Boolean).join(' '),
+      how: [exactHowComputed(tests.exact), smallPNote(tests.exact.p, tests.exact.logP)].filter(Boolean).join(' '),
       main: conclusion.test === 'exact',
     });
   }

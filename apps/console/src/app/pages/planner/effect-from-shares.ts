@@ -3,6 +3,8 @@
  * one wants to be able to detect (p1), w = √(Σ (p1ᵢ − p0ᵢ)² / p0ᵢ)
  * (Cohen 1988, Statistical Power Analysis for the Behavioral Sciences, 2nd ed., eq. 7.2.1).
  */
+import { SHARE_SUM_ROUNDING_TOLERANCE } from '@tallyfit/engine';
+
 export type SharesOutcome = { ok: true; w: number; df: number } | { ok: false; message: string };
 
 /** Reads shares written as numbers separated by commas, spaces, semicolons or colons (a ratio works too). */
@@ -14,6 +16,17 @@ export function readShares(text: string): number[] | null {
   if (parts.length === 0) return null;
   const values = parts.map(Number);
   return values.every((value) => Number.isFinite(value) && value >= 0) ? values : null;
+}
+
+/**
+ * Shares written with colons are a ratio (2:1:1) and are scaled to 1. Otherwise they are shares and
+ * follow the analysis flow's rule, the engine's: they must sum to 1 within its rounding tolerance.
+ */
+function sharesProblem(text: string, values: number[], what: string): string | null {
+  if (text.includes(':')) return null;
+  const total = values.reduce((sum, value) => sum + value, 0);
+  if (Math.abs(total - 1) <= SHARE_SUM_ROUNDING_TOLERANCE) return null;
+  return `The ${what} sum to ${Number(total.toPrecision(6))}; shares must sum to 1 (within ${SHARE_SUM_ROUNDING_TOLERANCE}). Write a ratio with colons, e.g. 50:30:20, to have it scaled.`;
 }
 
 const normalise = (values: number[]): number[] => {
@@ -32,7 +45,9 @@ export function effectFromShares(expectedText: string, alternativeText: string):
   }
   if (expected.some((value) => value === 0)) return { ok: false, message: 'Every expected share must be above 0.' };
   if (alternative.every((value) => value === 0)) return { ok: false, message: 'The shares to detect must not all be 0.' };
-  // Both sets are rescaled to sum to 1, so ratios and percentages work as well as shares.
+  const problem = sharesProblem(expectedText, expected, 'expected shares') ?? sharesProblem(alternativeText, alternative, 'shares to detect');
+  if (problem) return { ok: false, message: problem };
+  // Shares within the rounding tolerance and ratios are scaled to sum to exactly 1.
   const p0 = normalise(expected);
   const p1 = normalise(alternative);
   const w = Math.sqrt(p0.reduce((sum, share, index) => sum + (p1[index] - share) ** 2 / share, 0));

@@ -55,7 +55,7 @@ describe('PlannerPage', () => {
     await toggle('As two sets of shares');
     await type('expected', '0.5, 0.5');
     await type('detect', '0.6, 0.4');
-    expect(root.querySelector('.derived')?.textContent?.replace(/\s+/g, ' ')).toContain('w = 0.200 with 1 degrees of freedom');
+    expect(root.querySelector('.derived')?.textContent?.replace(/\s+/g, ' ')).toContain('w = 0.200 with 1 degree of freedom');
   });
 
   it('says what is wrong with the inputs instead of answering', async () => {

@@ -1,3 +1,4 @@
+import { CountPipe } from '../../shared/words/count-words';
 import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, signal } from '@angular/core';
 import { FormsModule } from '@angular/forms';
@@ -29,7 +30,9 @@ type Plan =
 /** Power for a given number of observations, or the number needed for a given power, computed in the browser. */
 @Component({
   selector: 'tf-planner-page',
-  imports: [DecimalPipe, FormsModule, MatButtonModule, MatButtonToggleModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, PowerCurveChart],
+  imports: [
+    CountPipe,
+    DecimalPipe, FormsModule, MatButtonModule, MatButtonToggleModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, PowerCurveChart],
   templateUrl: './planner-page.html',
   styleUrl: './planner-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -24,8 +24,18 @@ describe('effectFromShares', () => {
       message: 'The expected shares have 2 categories but the shares to detect have 3.',
     });
     expect(effectFromShares('0.5, 0', '0.5, 0.5')).toEqual({ ok: false, message: 'Every expected share must be above 0.' });
-    expect(effectFromShares('1, 1', '2, 2')).toEqual({ ok: false, message: 'The two sets of shares are the same: there is no difference to detect.' });
+    expect(effectFromShares('1:1', '2:2')).toEqual({ ok: false, message: 'The two sets of shares are the same: there is no difference to detect.' });
     expect(readShares('a, 1')).toBeNull();
+  });
+
+  it('refuses shares that do not sum to 1 with the analysis flow’s rule, and says so', () => {
+    expect(effectFromShares('0.5, 0.6', '0.5, 0.5')).toEqual({
+      ok: false,
+      message: 'The expected shares sum to 1.1; shares must sum to 1 (within 0.01). Write a ratio with colons, e.g. 50:30:20, to have it scaled.',
+    });
+    expect(effectFromShares('0.5, 0.5', '0.6, 0.5').ok).toBe(false);
+    // 0.333 × 3 = 0.999: a rounded published figure, accepted (common practice, no source).
+    expect(effectFromShares('0.333, 0.333, 0.333', '0.4, 0.3, 0.3').ok).toBe(true);
   });
 });
 

@@ -1,3 +1,4 @@
+import { CountPipe } from '../../shared/words/count-words';
 import { LiveAnnouncer } from '@angular/cdk/a11y';
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, viewChild } from '@angular/core';
@@ -28,6 +29,7 @@ import { StudyFormDialog } from './study-form-dialog';
 @Component({
   selector: 'tf-studies-page',
   imports: [
+    CountPipe,
     DatePipe,
     RouterLink,
     MatButtonModule,

@@ -68,6 +68,9 @@ describe('TokensPage', () => {
     fixture.detectChanges();
     expect(root.querySelector('[data-testid=new-token]')?.textContent).toBe('tf_ab12-the-whole-secret');
     expect(root.textContent).toContain('it will not be shown again');
+    // The emptied field after a successful save is not an error.
+    expect(root.textContent).not.toContain('Name the token.');
+    expect(root.querySelector('mat-form-field')?.classList.contains('mat-form-field-invalid')).toBe(false);
     button(root, 'Copy').click();
     expect(copy).toHaveBeenCalledWith('tf_ab12-the-whole-secret');
     fixture.detectChanges();

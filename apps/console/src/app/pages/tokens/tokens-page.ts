@@ -1,9 +1,9 @@
 import { LiveAnnouncer } from '@angular/cdk/a11y';
 import { Clipboard } from '@angular/cdk/clipboard';
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal, viewChild } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -74,6 +74,8 @@ export class TokensPage {
   protected readonly created = signal<CreatedApiToken | null>(null);
   protected readonly copied = signal(false);
 
+  private readonly formDirective = viewChild.required(FormGroupDirective);
+
   protected create(): void {
     const name = this.form.controls.name.value.trim();
     if (!name || this.form.invalid) {
@@ -87,7 +89,8 @@ export class TokensPage {
         this.creating.set(false);
         this.created.set(token);
         this.copied.set(false);
-        this.form.reset();
+        // resetForm (not reset) also clears the submitted state, so the emptied field is not shown as an error.
+        this.formDirective().resetForm({ name: '' });
         this.reloads.update((count) => count + 1);
         void this.announcer.announce(`Token ${token.name} created. Copy it now: it will not be shown again.`);
       },

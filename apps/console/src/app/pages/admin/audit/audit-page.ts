@@ -15,7 +15,7 @@ import { catchError, of, switchMap } from 'rxjs';
 import { AuditApi } from '../../../core/api/audit-api';
 import { PeopleApi } from '../../../core/api/people-api';
 import { failureMessage, LOADING, loadedValue, toLoadState } from '../../../core/load/load-state';
-import { AUDIT_ACTION_WORDS, AUDIT_RECORD_KINDS } from './audit-words';
+import { AUDIT_ACTION_WORDS, AUDIT_RECORD_KINDS, auditRecordWords } from './audit-words';
 
 interface AuditFilters {
   actorId: number | null;
@@ -78,6 +78,7 @@ export class AuditPage {
   );
   protected readonly actions = AUDIT_ACTIONS;
   protected readonly actionWords = AUDIT_ACTION_WORDS;
+  protected readonly recordWords = auditRecordWords;
   protected readonly recordKinds = AUDIT_RECORD_KINDS;
   protected readonly expanded = signal<number | null>(null);
 

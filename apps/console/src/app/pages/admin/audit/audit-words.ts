@@ -23,3 +23,11 @@ export const AUDIT_RECORD_KINDS: ReadonlyArray<{ value: string; words: string }>
   { value: 'user', words: 'People' },
   { value: 'api-token', words: 'API tokens' },
 ];
+
+/** The record an event touched, in words ("analysis 12", "API token 3"); none where the summary already says it (a person's own sign-in). */
+export function auditRecordWords(event: { entityType: string; entityId: string | null; actor: { id: number } | null }): string | null {
+  if (!event.entityId) return null;
+  if (event.entityType === 'user' && event.actor && String(event.actor.id) === event.entityId) return null;
+  const kind = { 'api-token': 'API token', 'study-member': 'study member', user: 'person' }[event.entityType] ?? event.entityType;
+  return `${kind} ${event.entityId}`;
+}

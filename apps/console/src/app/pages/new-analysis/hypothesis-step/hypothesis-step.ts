@@ -1,3 +1,4 @@
+import { CountPipe } from '../../../shared/words/count-words';
 import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, untracked } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
@@ -42,7 +43,9 @@ const SMALL_EXPECTED = 5;
  */
 @Component({
   selector: 'tf-hypothesis-step',
-  imports: [DecimalPipe, ReactiveFormsModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, MatSelectModule],
+  imports: [
+    CountPipe,
+    DecimalPipe, ReactiveFormsModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, MatSelectModule],
   templateUrl: './hypothesis-step.html',
   styleUrl: './hypothesis-step.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
