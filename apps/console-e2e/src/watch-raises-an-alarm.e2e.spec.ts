@@ -83,7 +83,7 @@ describe('an analyst sets up a watch, a pipeline feeds it, it raises an alarm an
     await page.getByRole('heading', { name: 'New watch' }).waitFor();
 
     await page.getByRole('combobox', { name: 'Study' }).click();
-    await page.getByRole('option', { name: 'Northwind storefront checks' }).click();
+    await page.getByRole('option', { name: 'Bramblewick Goods storefront checks' }).click();
     await page.getByLabel('Name').fill(WATCH_NAME);
     await page.getByLabel('Categories').fill('control\nredesign');
     // Every category equally likely is the first choice; the preview shows the shares it implies.

@@ -20,7 +20,7 @@ const draft = (change: Partial<WatchDraft> = {}): WatchDraft => ({
 function stored(change: Partial<WatchDetail> = {}): WatchDetail {
   return {
     id: 3,
-    study: { id: 4, name: 'Northwind' },
+    study: { id: 4, name: 'Bramblewick Goods' },
     name: 'Checkout split',
     description: null,
     labels: ['control', 'redesign'],
