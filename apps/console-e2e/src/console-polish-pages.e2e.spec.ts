@@ -24,10 +24,12 @@ describe('changed pages at 1280 and 390 wide', () => {
       await page.setViewportSize({ width, height: 900 });
       await page.goto(`${server.url}/analyses/1`);
       await page.getByText('Gap in standard errors').first().waitFor();
+      expect(await page.getByText('Gap in standard errors').count()).toBeGreaterThan(0);
       await screenshot(page, `polish-result-${width}`);
       await page.goto(`${server.url}/api/docs/`);
       await page.locator('.swagger-ui .info .title').first().waitFor();
       await page.waitForTimeout(500);
+      expect(await page.title()).toContain('Tallyfit');
       await screenshot(page, `polish-api-docs-${width}`);
     });
   }
