@@ -7,7 +7,7 @@ export default {
   transform: {
     '^.+\\.ts$': ['ts-jest', { tsconfig: '<rootDir>/tsconfig.spec.json' }],
     // marked ships only as an ES module; Node requires it natively, Jest's module system needs it compiled.
-    '^.+/node_modules/marked/.+\\.js$': ['ts-jest', { tsconfig: { allowJs: true, module: 'commonjs' } }],
+    '^.+/node_modules/marked/.+\\.js$': ['ts-jest', { tsconfig: '<rootDir>/tsconfig.esm-packages.json' }],
   },
   transformIgnorePatterns: ['/node_modules/(?!marked/)'],
   moduleFileExtensions: ['ts', 'js'],
