@@ -5,7 +5,6 @@ import {
   effectSizeText,
   formatExpectedCount,
   formatPValue,
-  formatPValueAt,
   formatShare,
   formatStatistic,
   groupDigits,

@@ -29,7 +29,7 @@ describe('AppShell', () => {
   it('gives a lead the audit trail directly and an admin the admin menu', () => {
     expect(links(render('lead').nativeElement)).toContain('Audit trail expand_more');
     TestBed.resetTestingModule();
-    expect(links(render('admin').nativeElement)).toEqual(['Studies', 'History', 'Watches', 'My analyses', 'New analysis', 'Planner', 'Admin expand_more']);
+    expect(links(render('admin').nativeElement)).toEqual(['Studies', 'History', 'To review', 'Watches', 'My analyses', 'New analysis', 'Planner', 'Admin expand_more']);
   });
 
   it('signs out from the account menu, revoking the session', async () => {

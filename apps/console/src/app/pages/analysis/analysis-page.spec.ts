@@ -72,7 +72,16 @@ describe('AnalysisPage', () => {
     fixture.detectChanges();
   }
 
-  afterEach(() => http.verify());
+  // The review panel, the comment thread and the notifications bell load their own lists; these tests are about the result.
+  const flushReviewThreads = () => {
+    for (const request of http.match((candidate) => /\/analyses\/\d+\/(reviews|comments)$|\/notifications$/.test(candidate.url))) {
+      if (!request.cancelled) request.flush([]);
+    }
+  };
+  afterEach(() => {
+    flushReviewThreads();
+    http.verify();
+  });
 
   const button = (label: string, prefix = false) =>
     Array.from(root.querySelectorAll<HTMLButtonElement>('button')).find((b) => {

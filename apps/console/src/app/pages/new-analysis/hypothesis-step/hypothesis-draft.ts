@@ -5,7 +5,6 @@
  */
 import { analysisSpecSchema, analyze, EngineInputError, type DistributionFamily, type DistributionParams, type Hypothesis } from '@tallyfit/engine';
 import type { ParsedCounts } from '../data-step/pasted-counts';
-import { SHARE_SUM_ROUNDING_TOLERANCE } from '@tallyfit/engine';
 
 export type HypothesisKind = Hypothesis['kind'];
 export type ParamName = keyof DistributionParams;
