@@ -130,8 +130,9 @@ describe(`a ${big ? '1 GB' : '128 MB'} upload`, () => {
     'is counted correctly while the server’s memory stays far below the file size',
     async () => {
       const warmUpPath = join(dir, 'warm-up.csv');
-      await writeAssignments(warmUpPath, 64 * 1024);
-      // A small upload first, so loading modules and warming up the parser do not count as growth.
+      // An upload first, so loading modules, warming up the parser and starting the two scan threads
+      // (files from 8 MB are counted in two threads) do not count as growth.
+      await writeAssignments(warmUpPath, 9 * 1024 ** 2);
       expect((await uploadFile(server, warmUpPath, {})).status).toBe(201);
 
       const path = join(dir, 'assignments.csv');

@@ -31,7 +31,7 @@ describe('review integrity', () => {
     const after = await ctx.as('analyst').get(`/analyses/${id}`);
     expect(after.body).toMatchObject({ title: 'Frozen split check', status: 'signed_off' });
 
-    const rerun = await ctx.as('analyst').post(`/analyses/${id}/rerun`, {});
+    const rerun = await ctx.as('analyst').post(`/analyses/${id}/rerun`, { spec: { ...after.body.spec, alpha: 0.01 } });
     expect(rerun.status).toBe(201);
     expect(rerun.body.analysis).toMatchObject({ version: 2, status: 'draft' });
     expect((await ctx.as('analyst').patch(`/analyses/${rerun.body.analysis.id}`, { title: 'Split check, corrected' })).status).toBe(200);
@@ -39,8 +39,10 @@ describe('review integrity', () => {
 
   it('refuses the author’s delete of a signed-off analysis (409); an admin may, and the audit counts every version', async () => {
     const id = await signedOff('Signed-off and wanted gone');
-    const v2 = (await ctx.as('analyst').post(`/analyses/${id}/rerun`, {})).body.analysis.id;
-    await ctx.as('analyst').post(`/analyses/${v2}/rerun`, {});
+    // A re-run must change something (the same spec on the same engine is refused as a duplicate).
+    const { spec } = (await ctx.as('analyst').get(`/analyses/${id}`)).body;
+    const v2 = (await ctx.as('analyst').post(`/analyses/${id}/rerun`, { spec: { ...spec, alpha: 0.01 } })).body.analysis.id;
+    await ctx.as('analyst').post(`/analyses/${v2}/rerun`, { spec: { ...spec, alpha: 0.02 } }).expect(201);
 
     const refused = await ctx.as('analyst').delete(`/analyses/${id}`);
     expect(refused.status).toBe(409);
