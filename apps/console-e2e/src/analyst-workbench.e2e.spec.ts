@@ -126,7 +126,7 @@ describe('an analyst uploads a file, fixes a failed assumption, downloads and sh
   });
 
   it('downloads the report as Markdown and PDF, and the categories as CSV', async () => {
-    const [markdown] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Markdown' }).click()]);
+    const [markdown] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Markdown', exact: true }).click()]);
     const report = readFileSync((await markdown.path())!, 'utf8');
     expect(report).toContain('Line 3 defects against the usual mix');
     expect(report).toMatch(/[Mm]erged/);
