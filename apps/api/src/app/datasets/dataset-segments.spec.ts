@@ -78,6 +78,8 @@ describe('analyses of a dataset with segments', () => {
     const counts = await ctx.as('analyst').post('/analyses', { ...request(), selection: { shape: 'counts', labelColumn: 'variant', countColumn: 'visitor' } });
     expect(counts.status).toBe(422);
     expect(counts.body.error.message).toMatch(/^segments need raw rows/);
-    expect(await ctx.db('analyses').where({ title: 'Split by device' }).count({ n: '*' }).first()).toMatchObject({ n: 2 });
+    // PostgreSQL answers a count as text, SQLite as a number.
+    const stored = await ctx.db('analyses').where({ title: 'Split by device' }).count({ n: '*' }).first();
+    expect(Number(stored?.n)).toBe(2);
   });
 });
