@@ -133,7 +133,7 @@ describe('an analyst uploads a file, fixes a failed assumption, downloads and sh
     const [pdf] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'PDF' }).click()]);
     expect(readFileSync((await pdf.path())!).subarray(0, 5).toString('latin1')).toBe('%PDF-');
     const [csv] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Categories as CSV' }).click()]);
-    expect(readFileSync((await csv.path())!, 'utf8').split('\n')[0].toLowerCase()).toContain('observed');
+    expect(readFileSync((await csv.path())!, 'utf8').split('\n')[0].toLowerCase()).toContain('counted');
   });
 
   it('shares the report by e-mail and the mail arrives in the stand-in’s inbox', async () => {

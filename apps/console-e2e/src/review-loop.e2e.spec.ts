@@ -20,6 +20,8 @@ async function bothWidths(page: Page, name: string): Promise<void> {
   await settle(page);
   await screenshot(page, `${name}-390`);
   await page.setViewportSize({ width: 1280, height: 800 });
+  // Back at desktop width the flow's stepper redraws from vertical to horizontal; let it finish first.
+  await settle(page);
 }
 
 const bell = (page: Page) => page.getByTestId('notification-bell');
