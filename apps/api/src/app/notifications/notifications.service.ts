@@ -132,7 +132,11 @@ export async function mailNotifications(db: Knex, delivery: NotificationMail, id
     } catch (error) {
       const reason = (error instanceof Error ? error.message : String(error)).slice(0, 500);
       delivery.logger.warn({ notificationId: row.id, reason }, 'notification e-mail not sent');
-      await db('notifications').where({ id: row.id }).update({ mail_status: 'failed', mail_failure: reason });
+      // Runs after the answer was sent: a database gone meanwhile (a server stopping) must not crash the process.
+      await db('notifications')
+        .where({ id: row.id })
+        .update({ mail_status: 'failed', mail_failure: reason })
+        .catch((storeError: unknown) => delivery.logger.warn({ notificationId: row.id, storeError }, 'could not record the failed e-mail'));
     }
   }
 }
