@@ -99,8 +99,9 @@ export async function decideReview(
     return notified;
   });
   if (delivery) {
-    // Not awaited: a slow mail server must not hold the decision's answer; the outcome is recorded per notification.
-    void mailNotifications(db, delivery, notificationIds).catch((error: unknown) =>
+    // After the commit, so a mail failure never undoes the decision; awaited so nothing writes after
+    // the answer (the mail client's own time-out bounds the wait). Each outcome is recorded per notification.
+    await mailNotifications(db, delivery, notificationIds).catch((error: unknown) =>
       delivery.logger.warn({ analysisId, reason: String(error) }, 'notification e-mails not sent'),
     );
   }
